@@ -1,0 +1,11 @@
+import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn } from 'typeorm';
+
+@Entity({ name: 'users' })
+export class User {
+  @PrimaryGeneratedColumn('uuid') id: string;
+  @Column({ type: 'text', unique: true }) email: string;
+  @Column({ type: 'text' }) name: string;
+  @Column({ name: 'password_hash', type: 'text' }) passwordHash: string;
+  @Column({ name: 'last_studio_id', type: 'uuid', nullable: true }) lastStudioId: string | null;
+  @CreateDateColumn({ name: 'created_at', type: 'timestamptz' }) createdAt: Date;
+}
