@@ -1,0 +1,10 @@
+import { PageHeader, EmptyState } from '@/components/query-state';
+
+export function Component() {
+  return (
+    <>
+      <PageHeader title="Planner" />
+      <EmptyState title="Nothing here yet">This section is being built.</EmptyState>
+    </>
+  );
+}

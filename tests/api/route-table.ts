@@ -1,0 +1,40 @@
+// Every API route with the answer expected for an anonymous visitor and for each studio role.
+// 'ok' means "let through" (any status but 401/403: the handler may still answer 404 or 422).
+// The route-table test fails when the app registers a route that is missing here, or the reverse.
+type Expect = 'ok' | 401 | 403;
+export interface RouteRow {
+  method: 'get' | 'post' | 'put' | 'patch' | 'delete';
+  path: string;
+  anon: Expect;
+  owner: Expect;
+  photographer: Expect;
+  retoucher: Expect;
+  guest: Expect;
+  /** The route ends the caller's session; test it with a throw-away agent. */
+  endsSession?: boolean;
+}
+
+const row = (method: RouteRow['method'], path: string, anon: Expect, owner: Expect, photographer: Expect, retoucher: Expect, guest: Expect, extra: Partial<RouteRow> = {}): RouteRow =>
+  ({ method, path, anon, owner, photographer, retoucher, guest, ...extra });
+
+export const ROUTE_TABLE: RouteRow[] = [
+  //   method    path                                                   anon  owner photo retou guest
+  row('get',    '/api/health',                                          'ok', 'ok', 'ok', 'ok', 'ok'),
+  row('get',    '/api/auth/csrf',                                       'ok', 'ok', 'ok', 'ok', 'ok'),
+  row('post',   '/api/auth/sign-in',                                    'ok', 'ok', 'ok', 'ok', 'ok'),
+  row('post',   '/api/auth/sign-out',                                   'ok', 'ok', 'ok', 'ok', 'ok', { endsSession: true }),
+  row('get',    '/api/auth/me',                                         401,  'ok', 'ok', 'ok', 'ok'),
+  row('post',   '/api/auth/active-studio',                              401,  'ok', 'ok', 'ok', 'ok'),
+  row('post',   '/api/auth/studios',                                    401,  'ok', 'ok', 'ok', 'ok'),
+  row('post',   '/api/auth/password-reset',                             'ok', 'ok', 'ok', 'ok', 'ok'),
+  row('post',   '/api/auth/password-reset/:token',                      'ok', 'ok', 'ok', 'ok', 'ok'),
+  row('get',    '/api/auth/invitations/:token',                         'ok', 'ok', 'ok', 'ok', 'ok'),
+  row('post',   '/api/auth/invitations/:token/accept',                  'ok', 'ok', 'ok', 'ok', 'ok'),
+  row('get',    '/api/studios/:studioId/members',                       401,  'ok', 'ok', 'ok', 'ok'),
+  row('patch',  '/api/studios/:studioId/members/:memberId',             401,  'ok', 403,  403,  403),
+  row('delete', '/api/studios/:studioId/members/:memberId',             401,  'ok', 403,  403,  403),
+  row('get',    '/api/studios/:studioId/invitations',                   401,  'ok', 403,  403,  403),
+  row('post',   '/api/studios/:studioId/invitations',                   401,  'ok', 403,  403,  403),
+  row('delete', '/api/studios/:studioId/invitations/:invitationId',     401,  'ok', 403,  403,  403),
+  row('get',    '/api/studios/:studioId/dev/mail',                      401,  'ok', 403,  403,  403),
+];
