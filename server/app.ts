@@ -14,7 +14,10 @@ import { csrfProtection } from './lib/csrf';
 import { errorHandler, notFoundApi } from './lib/http-errors';
 import { authRouter } from './routes/auth-routes';
 import { studioRouter } from './routes/studio-routes';
+import { kitRouter } from './routes/kit-routes';
+import { planRouter } from './routes/plan-routes';
 import { healthRouter } from './routes/health-routes';
+import { sessionRouter } from './routes/session-routes';
 import { registeredRoutes } from './lib/route';
 
 export interface AppOptions {
@@ -69,6 +72,9 @@ export function createApp(options: AppOptions = {}): Express {
   app.use(healthRouter());
   app.use(authRouter());
   app.use(studioRouter());
+  app.use(sessionRouter());
+  app.use(kitRouter());
+  app.use(planRouter());
   app.use('/api', notFoundApi);
 
   if (options.clientDir && fs.existsSync(options.clientDir)) {

@@ -6,6 +6,7 @@ import { Studio } from '../../server/entities/studio';
 import { User } from '../../server/entities/user';
 import type { Role } from '../../shared/roles';
 import { DEMO_STUDIO_NAME, DEMO_USERS } from './demo-users';
+import { seedDemoKitAndPlans } from './demo-kit';
 
 export async function demoExists(): Promise<boolean> {
   return (await getDataSource().getRepository(Studio).countBy({ name: DEMO_STUDIO_NAME })) > 0;
@@ -20,6 +21,7 @@ export async function resetDemo(): Promise<void> {
 /** Extra demo content (kit, plans, sessions) registers here so one seed call builds it all. */
 export type DemoPart = (ctx: { studioId: string; users: Record<Role, string> }) => Promise<void>;
 export const demoParts: DemoPart[] = [];
+demoParts.push(seedDemoKitAndPlans);
 
 export async function seedDemo(opts: { reset?: boolean } = {}): Promise<'created' | 'present'> {
   if (opts.reset) await resetDemo();

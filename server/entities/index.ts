@@ -1,5 +1,8 @@
 // The list TypeORM loads. Add each new entity here.
 import { User } from './user';
 import { CaughtMail, Invitation, Membership, PasswordReset, Studio } from './studio';
+import { KitBody, KitExtensionSet, KitLens, KitRail } from './kit';
+import { Plan } from './plan';
+import { CardImport, Frame, ShootSession, SortingSnapshot, Stack, StackEvent, StoredFile } from './session';
 
-export const entities = [User, Studio, Membership, Invitation, PasswordReset, CaughtMail];
+export const entities = [User, Studio, Membership, Invitation, PasswordReset, CaughtMail, KitBody, KitLens, KitExtensionSet, KitRail, Plan, ShootSession, CardImport, StoredFile, Stack, Frame, SortingSnapshot, StackEvent];

@@ -1,4 +1,6 @@
 // Migrations in the order they run. Add each new migration here.
 import { Foundation1733000000000 } from './1733000000000-foundation';
+import { KitAndPlans1733000001000 } from './1733000001000-kit-and-plans';
+import { SessionsAndFrames1733000002000 } from './1733000002000-sessions-and-frames';
 
-export const migrations = [Foundation1733000000000];
+export const migrations = [Foundation1733000000000, KitAndPlans1733000001000, SessionsAndFrames1733000002000];

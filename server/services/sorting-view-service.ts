@@ -1,0 +1,92 @@
+// What the sorting page shows: stacks in order with their frames, loose frames apart, and files.
+import { getDataSource } from '../lib/data-source';
+import { Frame, SortingSnapshot, Stack, StoredFile } from '../entities/session';
+import { DEFAULT_GROUPING_OPTIONS } from '../../shared/grouping';
+import { sessionInStudio } from './session-service';
+
+export interface FrameView {
+  id: string;
+  fileName: string;
+  captureTimeMs: number | null;
+  fNumber: number | null;
+  focalLengthMm: number | null;
+  exposureTimeS: number | null;
+  iso: number | null;
+  orientation: number | null;
+  bodySerial: string | null;
+  fileNumber: number | null;
+  excluded: boolean;
+  flags: string[];
+  previewStatus: string;
+  previewError: string | null;
+  files: { id: string; name: string; kind: string; isRaw: boolean; sizeBytes: number }[];
+}
+
+function frameView(f: Frame, files: StoredFile[]): FrameView {
+  return {
+    id: f.id,
+    fileName: f.fileName,
+    captureTimeMs: f.captureTimeMs,
+    fNumber: f.fNumber,
+    focalLengthMm: f.focalLengthMm,
+    exposureTimeS: f.exposureTimeS,
+    iso: f.iso,
+    orientation: f.orientation,
+    bodySerial: f.bodySerial,
+    fileNumber: f.fileNumber,
+    excluded: f.excluded,
+    flags: f.flags,
+    previewStatus: f.previewStatus,
+    previewError: f.previewError,
+    files: files.map((x) => ({ id: x.id, name: x.displayName, kind: x.kind, isRaw: x.isRaw, sizeBytes: x.sizeBytes })),
+  };
+}
+
+export async function sortingView(studioId: string, sessionId: string) {
+  const session = await sessionInStudio(studioId, sessionId);
+  const ds = getDataSource();
+  const [stacks, frames, files, last] = await Promise.all([
+    ds.getRepository(Stack).find({ where: { sessionId }, order: { position: 'ASC' } }),
+    ds.getRepository(Frame).find({ where: { sessionId }, order: { captureTimeMs: 'ASC', fileName: 'ASC' } }),
+    ds.getRepository(StoredFile).find({ where: { sessionId } }),
+    ds.getRepository(SortingSnapshot).findOne({ where: { sessionId }, order: { createdAt: 'DESC' }, select: { id: true, label: true } }),
+  ]);
+  const filesByFrame = new Map<string, StoredFile[]>();
+  for (const f of files) if (f.frameId) filesByFrame.set(f.frameId, [...(filesByFrame.get(f.frameId) ?? []), f]);
+  const view = (f: Frame) => frameView(f, filesByFrame.get(f.id) ?? []);
+  return {
+    sessionId,
+    groupingOptions: { ...DEFAULT_GROUPING_OPTIONS, ...session.groupingOptions },
+    undoLabel: last?.label ?? null,
+    stacks: stacks.map((s) => ({
+      id: s.id,
+      name: s.name,
+      state: s.state,
+      position: s.position,
+      startReason: s.startReason,
+      planId: s.planId,
+      version: s.version,
+      frames: frames.filter((f) => f.stackId === s.id).sort((a, b) => a.position - b.position).map(view),
+    })),
+    loose: frames.filter((f) => !f.stackId).map(view),
+    fileCount: files.length,
+  };
+}
+
+export async function listSessionFiles(studioId: string, sessionId: string) {
+  await sessionInStudio(studioId, sessionId);
+  const files = await getDataSource().getRepository(StoredFile).find({ where: { sessionId }, order: { captureTimeMs: 'ASC', displayName: 'ASC' } });
+  return files.map((f) => ({
+    id: f.id,
+    name: f.displayName,
+    originalName: f.originalName,
+    kind: f.kind,
+    isRaw: f.isRaw,
+    sizeBytes: f.sizeBytes,
+    sha256: f.sha256,
+    captureTimeMs: f.captureTimeMs,
+    frameId: f.frameId,
+    flags: f.flags,
+    metadata: f.metadata,
+  }));
+}
