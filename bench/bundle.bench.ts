@@ -41,7 +41,7 @@ async function writeRandomFile(path: string, megabytes: number): Promise<string>
   for (let i = 0; i < megabytes; i += 1) {
     const chunk = randomBytes(1 << 20); // random: nothing to gain from compression, like RAW data
     hash.update(chunk);
-    if (!out.write(chunk)) await new Promise((resolve) => out.once('drain', resolve));
+    if (!out.write(chunk)) await new Promise<void>((resolve) => out.once('drain', () => resolve()));
   }
   await new Promise<void>((resolve, reject) => out.end((error?: Error | null) => (error ? reject(error) : resolve())));
   return hash.digest('hex');

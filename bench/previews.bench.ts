@@ -20,7 +20,7 @@ async function makeSources(dir: string): Promise<string[]> {
   for (let i = 0; i < FILE_COUNT; i += 1) {
     const path = join(dir, `FERN_${String(i + 1).padStart(4, '0')}.jpg`);
     // Blurred noise: detail like a real photograph, so the JPEG decoder does real work (~6–9 MB files).
-    await sharp({ create: { width: 6000, height: 4000, channels: 3, noise: { type: 'gaussian', mean: 128 + i, sigma: 40 } } })
+    await sharp({ create: { width: 6000, height: 4000, channels: 3, background: '#808080', noise: { type: 'gaussian', mean: 128 + i, sigma: 40 } } })
       .blur(0.8)
       .jpeg({ quality: 90 })
       .toFile(path);

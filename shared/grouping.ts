@@ -301,27 +301,17 @@ export function groupIntoStacks(frames: readonly GroupingFrame[], options: Group
   };
 }
 
-/** One file as the card holds it; isRaw comes from content sniffing, never from the name. */
-export interface CardFile {
-  id: string;
-  fileName: string;
+/** One file as the card holds it, with its metadata; isRaw comes from content sniffing, never the name. */
+export interface CardFile extends GroupingFrame {
   isRaw: boolean;
-  captureTimeMs: number | null;
-  bodySerial?: string | null;
-  fNumber?: number | null;
-  focalLengthMm?: number | null;
-  exposureTimeS?: number | null;
-  iso?: number | null;
-  orientation?: number | null;
 }
 
 /**
- * One exposure. With a pair, the RAW is primary (it is what the merge uses): id, fileName and
- * metadata are the RAW's, each field the RAW lacks taken from the picture.
+ * One exposure, ready for groupIntoStacks. With a pair the RAW is primary (it is what the merge
+ * uses): id (= primaryFileId), fileName and metadata are the RAW's, each field it lacks taken
+ * from the picture.
  */
 export interface PairedFrame extends GroupingFrame {
-  /** The primary file's id. */
-  id: string;
   fileIds: string[];
   primaryFileId: string;
 }
@@ -344,19 +334,18 @@ function timeDistanceMs(a: CardFile, b: CardFile): number {
 }
 
 function frameOf(primary: CardFile, other?: CardFile): PairedFrame {
-  const pick = <K extends keyof CardFile>(key: K) => primary[key] ?? other?.[key] ?? null;
   return {
     id: primary.id,
     fileIds: other ? [primary.id, other.id] : [primary.id],
     primaryFileId: primary.id,
     fileName: primary.fileName,
-    captureTimeMs: pick('captureTimeMs') as number | null,
-    bodySerial: pick('bodySerial') as string | null,
-    fNumber: pick('fNumber') as number | null,
-    focalLengthMm: pick('focalLengthMm') as number | null,
-    exposureTimeS: pick('exposureTimeS') as number | null,
-    iso: pick('iso') as number | null,
-    orientation: pick('orientation') as number | null,
+    captureTimeMs: primary.captureTimeMs ?? other?.captureTimeMs ?? null,
+    bodySerial: primary.bodySerial ?? other?.bodySerial ?? null,
+    fNumber: primary.fNumber ?? other?.fNumber ?? null,
+    focalLengthMm: primary.focalLengthMm ?? other?.focalLengthMm ?? null,
+    exposureTimeS: primary.exposureTimeS ?? other?.exposureTimeS ?? null,
+    iso: primary.iso ?? other?.iso ?? null,
+    orientation: primary.orientation ?? other?.orientation ?? null,
   };
 }
 
@@ -373,35 +362,28 @@ export function pairRawAndJpeg(files: readonly CardFile[]): PairedFrame[] {
     if (list) list.push(index);
     else byBaseName.set(key, [index]);
   });
-  const partnerOf = new Map<number, number>(); // raw index -> picture index
-  const taken = new Set<number>();
+  const partnerOf = new Int32Array(files.length).fill(-1); // raw <-> picture, both ways
   for (const indices of byBaseName.values()) {
     if (indices.length < 2) continue;
-    for (const rawIndex of indices.filter((i) => files[i].isRaw)) {
+    for (const rawIndex of indices) {
+      if (!files[rawIndex].isRaw) continue;
       let best = -1;
       for (const pictureIndex of indices) {
         const picture = files[pictureIndex];
-        if (picture.isRaw || taken.has(pictureIndex) || !canPair(files[rawIndex], picture)) continue;
+        if (picture.isRaw || partnerOf[pictureIndex] >= 0 || !canPair(files[rawIndex], picture)) continue;
         if (best < 0 || timeDistanceMs(files[rawIndex], picture) < timeDistanceMs(files[rawIndex], files[best])) best = pictureIndex;
       }
       if (best >= 0) {
-        partnerOf.set(rawIndex, best);
-        taken.add(best);
+        partnerOf[rawIndex] = best;
+        partnerOf[best] = rawIndex;
       }
     }
   }
   const frames: PairedFrame[] = [];
-  const pictureToRaw = new Map([...partnerOf].map(([raw, picture]) => [picture, raw]));
-  const emitted = new Set<number>();
   files.forEach((file, index) => {
-    const rawIndex = file.isRaw ? index : pictureToRaw.get(index);
-    if (rawIndex === undefined) {
-      frames.push(frameOf(file));
-    } else if (!emitted.has(rawIndex)) {
-      emitted.add(rawIndex);
-      const pictureIndex = partnerOf.get(rawIndex);
-      frames.push(frameOf(files[rawIndex], pictureIndex === undefined ? undefined : files[pictureIndex]));
-    }
+    const partner = partnerOf[index];
+    if (partner < 0) frames.push(frameOf(file));
+    else if (partner > index) frames.push(file.isRaw ? frameOf(file, files[partner]) : frameOf(files[partner], file));
   });
   return frames;
 }

@@ -1,5 +1,5 @@
 import { Column, CreateDateColumn, Entity, PrimaryColumn, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
-import type { StackState } from '../../shared/schemas/sessions';
+import type { FrameStatsJson, StackState } from '../../shared/schemas/sessions';
 
 // bigint columns come back from pg as strings; this keeps capture times as numbers in ms.
 const bigintAsNumber = { to: (v: number | null) => v, from: (v: string | null) => (v === null ? null : Number(v)) };
@@ -90,7 +90,7 @@ export class Frame {
   @Column({ name: 'preview_error', type: 'text', nullable: true }) previewError: string | null;
   @Column({ name: 'preview_small_key', type: 'text', nullable: true }) previewSmallKey: string | null;
   @Column({ name: 'preview_large_key', type: 'text', nullable: true }) previewLargeKey: string | null;
-  @Column({ type: 'jsonb', nullable: true }) stats: Record<string, unknown> | null;
+  @Column({ type: 'jsonb', nullable: true }) stats: FrameStatsJson | null;
   @CreateDateColumn({ name: 'created_at', type: 'timestamptz' }) createdAt: Date;
 }
 

@@ -54,7 +54,9 @@ const EXIFR_OPTIONS = {
 const EARLIEST_YEAR = 1900;
 const LATEST_YEAR = 2099;
 const MAX_OFFSET_MINUTES = 14 * 60; // UTC-12:00 … UTC+14:00 are the zones in use
-const ISO_OVERFLOW = 65535; // EXIF 2.3: ISO above 65535 is written as 65535, the value in ISOSpeed
+// EXIF 2.3 (CIPA DC-008): a sensitivity above 65535 is written as 65535 and the value goes to
+// ISOSpeed (from memory).
+const ISO_OVERFLOW = 65535;
 const JPEG_TAIL_BYTES = 64;
 
 type Tags = Record<string, unknown>;

@@ -28,9 +28,9 @@ const RAW_BMFF_BRANDS = new Set(['crx ']);
 const TAG_NEW_SUBFILE_TYPE = 254;
 const TAG_PHOTOMETRIC = 262;
 const TAG_SUB_IFDS = 330;
-const TAG_DNG_VERSION = 50706; // DNG specification 1.4, "DNGVersion"
+const TAG_DNG_VERSION = 50706; // DNG specification 1.4, "DNGVersion" (exiftool confirms it in the test)
 const PHOTOMETRIC_CFA = 32803; // TIFF/EP: colour filter array, i.e. sensor data
-const PHOTOMETRIC_LINEAR_RAW = 34892; // DNG specification 1.4
+const PHOTOMETRIC_LINEAR_RAW = 34892; // DNG specification 1.4, "LinearRaw" (from memory)
 
 const EXECUTABLE_MIMES = new Set([
   'application/x-elf', 'application/x-mach-binary', 'application/x-msdownload', 'application/java-vm',
@@ -108,6 +108,17 @@ function tiffKind(bytes: Uint8Array, detectedByFileType: { ext: string; mime: st
   return { ok: true, kind: 'tiff-raw', mime: 'image/tiff', isRaw: false };
 }
 
+/** Drops a multi-byte UTF-8 character cut off by the end of the sample. */
+function withoutCutCharacter(sample: Uint8Array): Uint8Array {
+  let end = sample.length;
+  let continuation = 0;
+  while (end > 0 && continuation < 3 && (sample[end - 1] & 0xc0) === 0x80) {
+    end -= 1;
+    continuation += 1;
+  }
+  return end > 0 && sample[end - 1] >= 0xc0 ? sample.subarray(0, end - 1) : sample;
+}
+
 function looksLikeText(bytes: Uint8Array): boolean {
   const sample = bytes.subarray(0, SNIFF_BYTES);
   if (sample.includes(0)) return false;
@@ -115,9 +126,8 @@ function looksLikeText(bytes: Uint8Array): boolean {
   try {
     text = new TextDecoder('utf-8', { fatal: true }).decode(sample);
   } catch {
-    // A multi-byte character cut at the end of the sample is still text.
     try {
-      text = new TextDecoder('utf-8', { fatal: true }).decode(sample.subarray(0, Math.max(0, sample.length - 3)));
+      text = new TextDecoder('utf-8', { fatal: true }).decode(withoutCutCharacter(sample));
     } catch {
       return false;
     }

@@ -20,6 +20,8 @@ export interface FileStore {
   putStream(stream: Readable, opts?: { maxBytes?: number }): Promise<{ result: PutResult; commit: (key: string) => Promise<void>; discard: () => Promise<void> }>;
   createReadStream(key: string): Readable;
   localPath(key: string): string;
+  /** A local path to write a derived file to (previews, sheets, bundles); its folder exists. */
+  localPathForWrite(key: string): Promise<string>;
   exists(key: string): Promise<boolean>;
   remove(key: string): Promise<void>;
 }
@@ -75,6 +77,11 @@ export function folderStore(root: string): FileStore {
     },
     createReadStream: (key) => fs.createReadStream(abs(key)),
     localPath: abs,
+    async localPathForWrite(key) {
+      const p = abs(key);
+      await fs.promises.mkdir(path.dirname(p), { recursive: true });
+      return p;
+    },
     exists: (key) => fs.promises.access(abs(key)).then(() => true, () => false),
     remove: (key) => fs.promises.rm(abs(key), { force: true }),
   };

@@ -11,7 +11,9 @@ import { cardStorageEngine, type ReceivedCardFile } from '../lib/card-upload';
 import { createSession, deleteSession, getSessionRow, listSessions, updateSession } from '../services/session-service';
 import { completeImport, createImport, knownHashes, listImports, recordUploadedFiles } from '../services/card-import-service';
 import { regroupSession, undoLast } from '../services/sorting-service';
-import { listSessionFiles, sortingView } from '../services/sorting-view-service';
+import { listSessionFiles, previewKey, sortingView } from '../services/sorting-view-service';
+import { getStore } from '../lib/storage';
+import { pipeline } from 'node:stream/promises';
 
 const MAX_FILES_PER_REQUEST = 50;
 
@@ -97,6 +99,15 @@ export function sessionRouter(): Router {
         const options = parse(groupingOptionsSchema, req.body ?? {});
         await regroupSession(req.member!.studioId, String(req.params.sessionId), req.user!.id, { label: 'regroup', options });
         res.json(await sortingView(req.member!.studioId, String(req.params.sessionId)));
+      },
+    },
+    {
+      method: 'get', path: '/:sessionId/frames/:frameId/preview/:size', access: readers,
+      handler: async (req, res) => {
+        const key = await previewKey(req.member!.studioId, String(req.params.sessionId), String(req.params.frameId), String(req.params.size));
+        res.setHeader('Content-Type', 'image/jpeg');
+        res.setHeader('Cache-Control', 'private, max-age=300');
+        await pipeline(getStore().createReadStream(key), res);
       },
     },
     {

@@ -3,6 +3,7 @@ import { getDataSource } from '../lib/data-source';
 import { Frame, SortingSnapshot, Stack, StoredFile } from '../entities/session';
 import { DEFAULT_GROUPING_OPTIONS } from '../../shared/grouping';
 import { sessionInStudio } from './session-service';
+import { NotFound } from '../lib/errors';
 
 export interface FrameView {
   id: string;
@@ -89,4 +90,15 @@ export async function listSessionFiles(studioId: string, sessionId: string) {
     flags: f.flags,
     metadata: f.metadata,
   }));
+}
+
+/** The storage key of a frame's preview, once the worker has made it. */
+export async function previewKey(studioId: string, sessionId: string, frameId: string, size: string): Promise<string> {
+  await sessionInStudio(studioId, sessionId);
+  if (size !== 'small' && size !== 'large') throw new NotFound('Previews come in "small" and "large".');
+  const frame = /^[0-9a-f-]{36}$/i.test(frameId) ? await getDataSource().getRepository(Frame).findOneBy({ id: frameId, sessionId }) : null;
+  if (!frame) throw new NotFound('No such frame in this session.');
+  const key = size === 'small' ? frame.previewSmallKey : frame.previewLargeKey;
+  if (!key || frame.previewStatus !== 'done') throw new NotFound('This preview is not ready yet.');
+  return key;
 }

@@ -26,3 +26,13 @@ export const hashCheckSchema = z.object({ sha256: z.array(z.string().regex(/^[0-
 
 export type SessionCreate = z.infer<typeof sessionCreateSchema>;
 export type GroupingOptionsInput = z.infer<typeof groupingOptionsSchema>;
+
+/** Per-frame statistics the worker stores for the stack checks (see worker/lib/frame-stats.ts). */
+export interface FrameStatsJson {
+  meanLuminance: number;
+  sharpnessGrid: number[];
+  gridCols: number;
+  gridRows: number;
+  widthPx: number;
+  heightPx: number;
+}

@@ -75,4 +75,5 @@ export const ROUTE_TABLE: RouteRow[] = [
   row('post',   '/api/studios/:studioId/sessions/:sessionId/imports/:importId/complete', 401, 'ok', 'ok', 403, 403),
   row('post',   '/api/studios/:studioId/sessions/:sessionId/regroup',               401,  'ok', 'ok', 403,  403),
   row('post',   '/api/studios/:studioId/sessions/:sessionId/undo',                  401,  'ok', 'ok', 403,  403),
+  row('get',    '/api/studios/:studioId/sessions/:sessionId/frames/:frameId/preview/:size', 401, 'ok', 'ok', 403, 'ok'),
 ];

@@ -175,6 +175,15 @@ describe('writeBundle', { timeout: 30_000 }, () => {
     expect(readdirSync(dir)).toEqual([]);
   });
 
+  it('aborts when a source fails while being read, leaving nothing behind', async () => {
+    const stack = fernStack();
+    // Linux: /proc/self/mem stats as a regular file but reading offset 0 fails with EIO.
+    stack.frames[0].files.push({ path: '/proc/self/mem', originalName: 'FERN_0104.xmp', ext: 'xmp', sha256: 'a'.repeat(64), role: 'other' });
+    const dir = mkdtempSync(join(workDir, 'ioerror-'));
+    await expect(writeBundle({ outPath: join(dir, 'fern.zip'), stacks: [stack] })).rejects.toThrow(/"FERN_0104\.xmp".*failed while reading.*EIO/);
+    expect(readdirSync(dir)).toEqual([]);
+  });
+
   it('refuses bad input with the field named', async () => {
     const stack = fernStack();
     stack.frames[0].files[0].sha256 = 'not-a-hash';

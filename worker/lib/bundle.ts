@@ -17,7 +17,11 @@ import { buildManifest, manifestCsv } from './bundle-manifest';
 
 // Larger reads than the 64 KiB default: fewer hops through the hash, CRC and zip streams.
 const READ_CHUNK_BYTES = 1 << 20;
-const nullableNumber = z.number().positive().nullish();
+// Metadata from cameras can hold zeros for "unknown"; the manifest records those as null.
+const nullableNumber = z
+  .number()
+  .nullish()
+  .transform((value) => (value !== null && value !== undefined && value > 0 ? value : null));
 
 const bundleFileSchema = z.object({
   path: z.string().min(1),

@@ -24,16 +24,16 @@ export function renderBeetle(request: SceneRequest): SceneImage {
   const angle = randomBetween(random, -0.5, 0.5);
   const cosA = Math.cos(angle);
   const sinA = Math.sin(angle);
-  const cx = randomBetween(random, -0.1, 0.1) * aspect;
+  const cx = randomBetween(random, -0.04, 0.08) * aspect;
   const cy = randomBetween(random, -0.06, 0.06);
   const tiltAngle = randomBetween(random, 0, Math.PI * 2);
   const tiltX = Math.cos(tiltAngle);
   const tiltY = Math.sin(tiltAngle);
   const tiltExtent = Math.abs(tiltX) * aspect * 0.5 + Math.abs(tiltY) * 0.5;
-  const boardNearMm = subjectNearMm + 0.55 * rangeMm;
+  const boardNearMm = subjectNearMm + 0.4 * rangeMm;
   const boardDepthAt = (u: number, v: number) =>
     boardNearMm + (subjectFarMm - boardNearMm) * (0.5 + (0.5 * (u * tiltX + v * tiltY)) / tiltExtent);
-  const bodyLength = randomBetween(random, 0.27, 0.33);
+  const bodyLength = randomBetween(random, 0.36, 0.42);
   const parts: BodyPart[] = [
     { cx: 0.1, cy: 0, halfLength: bodyLength, halfWidth: bodyLength * 0.62, heightMm: 0, kind: 'elytra' },
     { cx: -bodyLength * 0.95, cy: 0, halfLength: bodyLength * 0.32, halfWidth: bodyLength * 0.48, heightMm: 0, kind: 'pronotum' },

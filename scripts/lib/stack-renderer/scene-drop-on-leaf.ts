@@ -27,7 +27,7 @@ export function renderDropOnLeaf(request: SceneRequest): SceneImage {
   const tiltX = Math.cos(tiltAngle);
   const tiltY = Math.sin(tiltAngle);
   const tiltExtent = Math.abs(tiltX) * aspect * 0.5 + Math.abs(tiltY) * 0.5;
-  const leafNearMm = subjectNearMm + 0.22 * rangeMm;
+  const leafNearMm = subjectNearMm + 0.15 * rangeMm;
   const leafDepthAt = (u: number, v: number) =>
     leafNearMm + (subjectFarMm - leafNearMm) * (0.5 + (0.5 * (u * tiltX + v * tiltY)) / tiltExtent);
 
