@@ -1,7 +1,8 @@
 // Grouping speed on a synthetic 10,000-frame card, against a plain sort of the same frames.
 // Run: npx tsx bench/grouping.bench.ts
 import { performance } from 'node:perf_hooks';
-import { groupIntoStacks, pairRawAndJpeg, type CardFile, type GroupingFrame } from '../shared/grouping';
+import { groupIntoStacks, type GroupingFrame } from '../shared/grouping';
+import { pairRawAndJpeg, type CardFile } from '../shared/raw-pairing';
 
 const FRAME_COUNT = 10_000;
 const RUNS = 15;

@@ -63,6 +63,10 @@ export class Stack {
   @Column({ name: 'start_reason', type: 'text' }) startReason: string;
   @Column({ name: 'plan_id', type: 'uuid', nullable: true }) planId: string | null;
   @Column({ type: 'int' }) version: number;
+  @Column({ name: 'handed_to_user_id', type: 'uuid', nullable: true }) handedToUserId: string | null;
+  @Column({ name: 'handed_to_email', type: 'text', nullable: true }) handedToEmail: string | null;
+  @Column({ name: 'handed_off_at', type: 'timestamptz', nullable: true }) handedOffAt: Date | null;
+  @Column({ name: 'merged_at', type: 'timestamptz', nullable: true }) mergedAt: Date | null;
   @CreateDateColumn({ name: 'created_at', type: 'timestamptz' }) createdAt: Date;
   @UpdateDateColumn({ name: 'updated_at', type: 'timestamptz' }) updatedAt: Date;
 }

@@ -14,6 +14,7 @@ import { regroupSession, undoLast } from '../services/sorting-service';
 import { listSessionFiles, previewKey, sortingView } from '../services/sorting-view-service';
 import { getStore } from '../lib/storage';
 import { pipeline } from 'node:stream/promises';
+import { stackEditRoutes } from './stack-edit-routes';
 
 const MAX_FILES_PER_REQUEST = 50;
 
@@ -117,6 +118,7 @@ export function sessionRouter(): Router {
         res.json({ undone, sorting: await sortingView(req.member!.studioId, String(req.params.sessionId)) });
       },
     },
+    ...stackEditRoutes(editors, readers),
   ]);
   return router;
 }

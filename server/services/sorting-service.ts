@@ -5,7 +5,8 @@ import type { QueryDeepPartialEntity } from 'typeorm/query-builder/QueryPartialE
 import { getDataSource } from '../lib/data-source';
 import { enqueueMany } from '../lib/queues';
 import { Frame, ShootSession, SortingSnapshot, Stack, StoredFile } from '../entities/session';
-import { groupIntoStacks, pairRawAndJpeg, type CardFile } from '../../shared/grouping';
+import { groupIntoStacks } from '../../shared/grouping';
+import { pairRawAndJpeg, type CardFile } from '../../shared/raw-pairing';
 import { groupingOptionsSchema, type GroupingOptionsInput } from '../../shared/schemas/sessions';
 import { NotFound } from '../lib/errors';
 import { sessionInStudio } from './session-service';

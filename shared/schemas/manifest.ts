@@ -35,6 +35,8 @@ export type ManifestFrame = z.infer<typeof manifestFrameSchema>;
 export const manifestLegendEntrySchema = z.object({
   code: z.string().min(1),
   label: z.string(),
+  meaning: z.string(),
+  /** The glyph's shape name, as drawn on the contact sheet (e.g. 'half-filled-circle'). */
   glyph: z.string(),
   colourHex: z.string().regex(/^#[0-9A-Fa-f]{6}$/),
 });

@@ -10,6 +10,7 @@ export const paths = {
   planPrint: (planId = ':planId') => `/plans/${planId}/print`,
   sessions: '/sessions',
   session: (sessionId = ':sessionId') => `/sessions/${sessionId}`,
+  stack: (sessionId = ':sessionId', stackId = ':stackId') => `/sessions/${sessionId}/stacks/${stackId}`,
   kit: '/kit',
   studio: '/studio',
   handoffs: '/handoffs',

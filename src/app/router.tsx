@@ -15,7 +15,10 @@ export const router = createBrowserRouter([
     children: [
       { index: true, element: <Navigate to={paths.planner} replace /> },
       { path: paths.planner, lazy: () => import('./routes/planner') },
+      { path: paths.plan(), lazy: () => import('./routes/plan') },
+      { path: paths.planPrint(), lazy: () => import('./routes/plan-print') },
       { path: paths.sessions, lazy: () => import('./routes/sessions') },
+      { path: paths.session(), lazy: () => import('./routes/session') },
       { path: paths.kit, lazy: () => import('./routes/kit') },
       { path: paths.studio, lazy: () => import('./routes/studio') },
       { path: '*', lazy: () => import('./routes/not-found') },

@@ -39,6 +39,12 @@ async function ensureCsrf(): Promise<string> {
   return csrfToken;
 }
 
+/** The CSRF token for requests made outside this client (uploads with progress); `fresh` asks anew. */
+export async function getCsrfToken(fresh = false): Promise<string> {
+  if (fresh) csrfToken = null;
+  return ensureCsrf();
+}
+
 type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
 
 async function request<T>(method: Method, url: string, body?: unknown, retried = false): Promise<T> {

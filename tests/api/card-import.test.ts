@@ -79,32 +79,47 @@ describe('card import', () => {
     await shoot(10, 4, { fNumber: 11 }, true); // stack 2 with RAW+JPEG pairs
     t += 4 * 60_000;
     await shoot(15, 0.4, { fNumber: 5.6 }); // stack 3: an automatic burst
-    expect(files.length).toBeGreaterThanOrEqual(49);
-    // Upload in several requests, as the client does, then resume with a repeat of the first batch.
-    for (let i = 0; i < files.length; i += 10) {
+    t += 6 * 60_000;
+    await shoot(12, 5, { bodySerial: 'BODY-B-0002' }); // stack 4 on a second body
+    expect(files.length).toBeGreaterThanOrEqual(60);
+    const hashes = files.map((f) => crypto.createHash('sha256').update(f.data).digest('hex'));
+    // The first attempt breaks off after three requests of 10 files, as the client sends them.
+    for (let i = 0; i < 30; i += 10) {
       const res = await uploadTo(photographer, sessionId, importId, files.slice(i, i + 10));
       expect(res.status).toBe(201);
     }
-    const again = await uploadTo(photographer, sessionId, importId, files.slice(0, 10));
+    // Resuming: the client asks which files the session holds already and sends only the rest.
+    const known = await photographer.post(`/api/studios/${fx.studioId}/sessions/${sessionId}/known-hashes`).set('x-csrf-token', photographer.csrf).send({ sha256: hashes });
+    expect([...known.body.known].sort()).toEqual(hashes.slice(0, 30).sort());
+    const rest = files.filter((_, i) => !known.body.known.includes(hashes[i]));
+    expect(rest).toHaveLength(files.length - 30);
+    for (let i = 0; i < rest.length; i += 10) {
+      const res = await uploadTo(photographer, sessionId, importId, rest.slice(i, i + 10));
+      expect(res.status).toBe(201);
+      expect(res.body.files.every((f: { status: string }) => f.status === 'stored')).toBe(true);
+    }
+    // A repeat of the first batch and a renamed copy of one frame: nothing is stored twice.
+    const again = await uploadTo(photographer, sessionId, importId, [...files.slice(0, 10), { name: 'FRN_0005 copy.JPG', data: files[4].data }]);
     expect(again.body.files.every((f: { status: string }) => f.status === 'duplicate')).toBe(true);
     const done = await photographer.post(`/api/studios/${fx.studioId}/sessions/${sessionId}/imports/${importId}/complete`).set('x-csrf-token', photographer.csrf).send({});
     expect(done.status).toBe(200);
-    expect(done.body).toMatchObject({ storedCount: files.length, duplicateCount: 10, refusedCount: 0 });
+    expect(done.body).toMatchObject({ storedCount: files.length, duplicateCount: 11, refusedCount: 0 });
 
     const sorting = await photographer.get(`/api/studios/${fx.studioId}/sessions/${sessionId}/sorting`).expect(200);
-    expect(sorting.body.stacks.map((s: { frames: unknown[] }) => s.frames.length)).toEqual([12, 10, 15]);
+    expect(sorting.body.stacks.map((s: { frames: unknown[] }) => s.frames.length)).toEqual([12, 10, 15, 12]);
+    expect(sorting.body.stacks.map((s: { startReason: string }) => s.startReason)).toEqual(['first', 'setting', 'setting', 'body']);
     expect(sorting.body.loose).toHaveLength(2);
     const paired = sorting.body.stacks[1].frames[0];
     expect(paired.files.map((f: { kind: string }) => f.kind).sort()).toEqual(['jpeg', 'tiff-raw']);
     const list = await photographer.get(`/api/studios/${fx.studioId}/sessions`).expect(200);
-    expect(list.body.sessions.find((s: { id: string }) => s.id === sessionId)).toMatchObject({ frameCount: 39, stackCount: 3, looseCount: 2 });
+    expect(list.body.sessions.find((s: { id: string }) => s.id === sessionId)).toMatchObject({ frameCount: 51, stackCount: 4, looseCount: 2 });
 
     // A tighter gap rule splits nothing here but is remembered; undo brings back the arrangement.
     const regrouped = await photographer.post(`/api/studios/${fx.studioId}/sessions/${sessionId}/regroup`).set('x-csrf-token', photographer.csrf).send({ minStackSize: 20 });
     expect(regrouped.body.stacks).toHaveLength(0);
-    expect(regrouped.body.loose).toHaveLength(39);
+    expect(regrouped.body.loose).toHaveLength(51);
     const undone = await photographer.post(`/api/studios/${fx.studioId}/sessions/${sessionId}/undo`).set('x-csrf-token', photographer.csrf).send({});
-    expect(undone.body.sorting.stacks.map((s: { frames: unknown[] }) => s.frames.length)).toEqual([12, 10, 15]);
+    expect(undone.body.sorting.stacks.map((s: { frames: unknown[] }) => s.frames.length)).toEqual([12, 10, 15, 12]);
   });
 
   it('refuses guests and other studios, and bad multipart bodies with a clear message', async () => {

@@ -76,4 +76,12 @@ export const ROUTE_TABLE: RouteRow[] = [
   row('post',   '/api/studios/:studioId/sessions/:sessionId/regroup',               401,  'ok', 'ok', 403,  403),
   row('post',   '/api/studios/:studioId/sessions/:sessionId/undo',                  401,  'ok', 'ok', 403,  403),
   row('get',    '/api/studios/:studioId/sessions/:sessionId/frames/:frameId/preview/:size', 401, 'ok', 'ok', 403, 'ok'),
+  row('post',   '/api/studios/:studioId/sessions/:sessionId/stacks/:stackId/split',      401, 'ok', 'ok', 403, 403),
+  row('post',   '/api/studios/:studioId/sessions/:sessionId/stacks/:stackId/merge-next', 401, 'ok', 'ok', 403, 403),
+  row('patch',  '/api/studios/:studioId/sessions/:sessionId/stacks/:stackId',            401, 'ok', 'ok', 403, 403),
+  row('post',   '/api/studios/:studioId/sessions/:sessionId/stacks/:stackId/state',      401, 'ok', 'ok', 403, 403),
+  row('post',   '/api/studios/:studioId/sessions/:sessionId/stacks/:stackId/order',      401, 'ok', 'ok', 403, 403),
+  row('get',    '/api/studios/:studioId/sessions/:sessionId/stacks/:stackId/events',     401, 'ok', 'ok', 403, 'ok'),
+  row('post',   '/api/studios/:studioId/sessions/:sessionId/frames/move',                401, 'ok', 'ok', 403, 403),
+  row('post',   '/api/studios/:studioId/sessions/:sessionId/frames/exclusion',           401, 'ok', 'ok', 403, 403),
 ];

@@ -1,12 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import {
-  groupIntoStacks,
-  pairRawAndJpeg,
-  type CardFile,
-  type GroupingFrame,
-  type GroupingOptions,
-} from '@shared/grouping';
+import { groupIntoStacks, type GroupingFrame, type GroupingOptions } from '@shared/grouping';
+import { pairRawAndJpeg, type CardFile } from '@shared/raw-pairing';
 import { baseNameOf, displayNameOf, fileNumberOf, storageNameOf } from '@shared/file-names';
 
 // The studio's scenarios: dew on a fern, a watch movement, a museum beetle.

@@ -89,7 +89,7 @@ function pngWithDeclaredSize(widthPx: number, heightPx: number): string {
 
 describe('makePreviews', { timeout: 30_000 }, () => {
   it('makes a 1600 px and a 320 px JPEG of the sizes vipsthumbnail makes, via temp files only', async () => {
-    const source = await jpegFile(3000, 2000);
+    const source = await jpegFile(2400, 1600);
     const { result, dir, outSmallPath, outLargePath } = await run(source, 'jpeg');
     expect(result).toMatchObject({ source: 'image', flags: [] });
     for (const [out, size] of [[outLargePath, 1600], [outSmallPath, 320]] as const) {

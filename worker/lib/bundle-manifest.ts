@@ -11,7 +11,7 @@ export function manifestLegend(frames: ManifestFrame[]): ManifestLegendEntry[] {
   for (const frame of frames) for (const flag of frame.flags) codes.add(flag);
   return [...codes].map((code) => {
     const glyph = glyphFor(code);
-    return { code, label: glyph.label, glyph: glyph.shape, colourHex: glyph.colourHex };
+    return { code, label: glyph.label, meaning: glyph.meaning, glyph: glyph.shape, colourHex: glyph.colourHex };
   });
 }
 

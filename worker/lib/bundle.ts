@@ -215,6 +215,7 @@ export async function writeBundle(input: WriteBundleInput): Promise<WriteBundleR
   const piping = pipeline(archive, out.stream);
   piping.catch(() => undefined);
 
+  let readFailure: Error | null = null;
   const appendEntry = async (entry: PlannedEntry): Promise<void> => {
     const { source } = entry;
     let stream: Readable | Buffer;
@@ -223,7 +224,8 @@ export async function writeBundle(input: WriteBundleInput): Promise<WriteBundleR
       hasher = new HashingPassThrough(advance);
       stream = hasher;
       pipeline(createReadStream(source.path, { highWaterMark: READ_CHUNK_BYTES }), hasher).catch((error: Error) => {
-        archive.emit('error', new Error(`bundle source ${source.label} failed while reading: ${error.message}`));
+        readFailure ??= new Error(`bundle source ${source.label} failed while reading: ${error.message}`, { cause: error });
+        archive.emit('error', readFailure);
       });
     } else {
       stream = source.data;
@@ -252,7 +254,7 @@ export async function writeBundle(input: WriteBundleInput): Promise<WriteBundleR
   } catch (error) {
     archive.abort();
     await out.abort();
-    throw error;
+    throw readFailure ?? error;
   }
   const { size } = await stat(outPath);
   return { bytes: size, entries: planned.map((e) => e.name) };

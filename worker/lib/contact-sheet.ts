@@ -35,7 +35,7 @@ const RULE = '#D9D4CA';
 // JPEG normally falls back to the machine's sans (the PDF embeds Plex itself).
 const FONT = "'IBM Plex Sans', 'DejaVu Sans', sans-serif";
 /** Above this the cells shrink, so a 1,000-frame stack still makes a sheet of sane size. */
-export const MAX_SHEET_PIXELS = 60_000_000;
+export const MAX_SHEET_PIXELS = 40_000_000;
 
 // Cells wait in memory until libvips joins them: as JPEG a photographic cell is ~40 kB where PNG
 // would be ~250 kB. No chroma subsampling keeps the coloured glyphs and small text crisp.
@@ -46,7 +46,8 @@ type Dims = typeof BASE;
 
 function scaled(scale: number): Dims {
   const entries = Object.entries(BASE).map(([key, value]) => [key, Math.max(1, Math.round(value * scale))]);
-  return Object.fromEntries(entries) as Dims;
+  const d = Object.fromEntries(entries) as Dims;
+  return { ...d, cellW: d.thumbW + 2 * d.pad }; // rounded separately they could differ by a pixel
 }
 
 function cellSvg(frame: ContactSheetFrame | null, d: Dims, missing: boolean): string {
@@ -112,8 +113,8 @@ ${legendParts.join('')}
 
 /**
  * One JPEG per stack: a header band, then a grid of cells (thumbnail, number, capture time,
- * exposure, check glyphs) in frame order. Cells are drawn one at a time and joined by libvips,
- * so memory follows the sheet's size, not the number of overlays.
+ * exposure, check glyphs) in frame order. Big stacks get smaller cells so the sheet stays
+ * within MAX_SHEET_PIXELS. A frame whose preview is missing gets a grey cell, not an error.
  */
 export async function renderContactSheetJpeg(input: ContactSheetInput, outPath: string): Promise<ContactSheetJpegResult> {
   const data = parseContactSheetInput(input);
@@ -136,15 +137,21 @@ export async function renderContactSheetJpeg(input: ContactSheetInput, outPath: 
     while (cells.length < rows * columns) cells.push(blank);
   }
 
-  const header = Buffer.from(headerSvg(data, widthPx, d));
-  const sheet =
-    count > 0
-      ? sharp(cells, { join: { across: columns } }).extend({ top: d.header, background: PAPER })
-      : sharp({ create: { width: widthPx, height: d.header, channels: 3, background: PAPER } });
-  const { data: jpeg, info } = await sheet
-    .composite([{ input: header, top: 0, left: 0 }])
-    .flatten({ background: PAPER })
-    .jpeg({ quality: 85 })
+  // The sheet is put together as raw pixels, one band at a time (header, then each row of
+  // cells joined by libvips), then encoded once: peak memory is the raw sheet, at most
+  // MAX_SHEET_PIXELS × 3 bytes, however many frames there are.
+  const heightPx = d.header + rows * d.cellH;
+  const sheetPixels = Buffer.alloc(widthPx * heightPx * 3);
+  const header = await sharp(Buffer.from(headerSvg(data, widthPx, d))).flatten({ background: PAPER }).removeAlpha().raw().toBuffer();
+  header.copy(sheetPixels, 0);
+  for (let row = 0; row < rows; row += 1) {
+    const rowCells = cells.slice(row * columns, (row + 1) * columns);
+    const band = await sharp(rowCells, { join: { across: columns } }).removeAlpha().raw().toBuffer();
+    band.copy(sheetPixels, (d.header + row * d.cellH) * widthPx * 3);
+  }
+  const { data: jpeg, info } = await sharp(sheetPixels, { raw: { width: widthPx, height: heightPx, channels: 3 }, limitInputPixels: false })
+    // Huffman optimisation keeps every coefficient of the sheet in memory (+200 MB at 40 MP).
+    .jpeg({ quality: 85, optimizeCoding: false })
     .toBuffer({ resolveWithObject: true });
   await writeFileAtomic(outPath, jpeg);
   return {

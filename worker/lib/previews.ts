@@ -149,7 +149,11 @@ export async function makePreviews(sourcePath: string, options: MakePreviewsOpti
   const probes: Probe[] = [];
   if (options.kind !== 'bmff-raw') probes.push(await probe(sourcePath, 'image', 1));
   const direct = probes[0]?.kind === 'ok' ? probes[0].candidate : null;
-  const wantsEmbedded = RAW_KINDS.has(options.kind) ? !direct || direct.longEdgePx < THUMBNAIL_LONG_EDGE_PX : !direct;
+  // HEIF headers often parse where the prebuilt libvips cannot decode the pictures (HEVC), so
+  // their Exif thumbnail is looked for as well.
+  const wantsEmbedded = RAW_KINDS.has(options.kind)
+    ? !direct || direct.longEdgePx < THUMBNAIL_LONG_EDGE_PX
+    : options.kind === 'heif' || !direct;
   if (wantsEmbedded && options.kind !== 'png') {
     probes.push(...(await embeddedCandidates(sourcePath, await containerOrientationOf(sourcePath))));
   }

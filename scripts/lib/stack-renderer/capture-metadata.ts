@@ -63,3 +63,30 @@ export function jpegExif(settings: CaptureSettings): Exif {
     },
   };
 }
+
+/**
+ * libvips always writes ExifVersion 0210, but OffsetTimeOriginal (EXIF 2.31) and
+ * BodySerialNumber (EXIF 2.3) need a newer one; this patches the 4-byte value in place.
+ */
+export function withExifVersion(jpeg: Buffer, version: '0232'): Buffer {
+  const patched = Buffer.from(jpeg);
+  for (const bigEndian of [true, false]) {
+    const entry = Buffer.alloc(12);
+    if (bigEndian) {
+      entry.writeUInt16BE(0x9000, 0);
+      entry.writeUInt16BE(7, 2);
+      entry.writeUInt32BE(4, 4);
+    } else {
+      entry.writeUInt16LE(0x9000, 0);
+      entry.writeUInt16LE(7, 2);
+      entry.writeUInt32LE(4, 4);
+    }
+    entry.write('0210', 8, 'latin1');
+    const at = patched.indexOf(entry);
+    if (at >= 0 && at < 65536) {
+      patched.write(version, at + 8, 'latin1');
+      return patched;
+    }
+  }
+  return patched;
+}

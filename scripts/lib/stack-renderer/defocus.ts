@@ -71,19 +71,64 @@ function asUint16(buffer: Buffer): Uint16Array {
   return new Uint16Array(Uint8Array.prototype.slice.call(buffer).buffer);
 }
 
-/** Linear-light picture of the scene focused at focusMm; blur sigma = sigmaPxPerMm * |depth - focus|. */
-export function renderDefocused(
-  scene: SceneImage,
-  ladder: BlurLadder,
-  focusMm: number,
-  sigmaPxPerMm: number,
-  out: Float32Array,
-): void {
+/**
+ * Blur sigma per pixel for one focus depth. A plain per-pixel blur would keep the outline of a
+ * blurred foreground (a drop, a beetle) crisp against a sharp background; real defocus spreads
+ * the near object's blur over what lies behind it, so the blur of pixels in front of the focus
+ * is spread (box-blurred) onto the pixels behind.
+ */
+export function defocusSigmas(scene: SceneImage, focusMm: number, sigmaPxPerMm: number, maxSigmaPx: number): Float32Array {
+  const { widthPx, heightPx, depthMm } = scene;
+  const pixelCount = widthPx * heightPx;
+  const sigmas = new Float32Array(pixelCount);
+  const front = new Float32Array(pixelCount);
+  let frontSum = 0;
+  let frontCount = 0;
+  for (let pixel = 0; pixel < pixelCount; pixel++) {
+    const sigma = Math.min(maxSigmaPx, sigmaPxPerMm * Math.abs(depthMm[pixel] - focusMm));
+    sigmas[pixel] = sigma;
+    if (depthMm[pixel] < focusMm && sigma >= 1) {
+      front[pixel] = sigma;
+      frontSum += sigma;
+      frontCount++;
+    }
+  }
+  if (frontCount === 0) return sigmas;
+  const radius = Math.max(1, Math.round((frontSum / frontCount) * 1.2));
+  const spread = boxBlur(boxBlur(front, widthPx, heightPx, radius), widthPx, heightPx, radius);
+  for (let pixel = 0; pixel < pixelCount; pixel++) {
+    if (depthMm[pixel] >= focusMm && spread[pixel] > sigmas[pixel]) sigmas[pixel] = spread[pixel];
+  }
+  return sigmas;
+}
+
+/** Separable running-sum box blur (edges clamped); two passes approximate a Gaussian. */
+function boxBlur(source: Float32Array, widthPx: number, heightPx: number, radius: number): Float32Array {
+  const across = new Float32Array(source.length);
+  const out = new Float32Array(source.length);
+  const span = 2 * radius + 1;
+  const runs = (length: number, count: number, at: (line: number, i: number) => number, from: Float32Array, to: Float32Array) => {
+    for (let line = 0; line < count; line++) {
+      let sum = 0;
+      for (let i = -radius; i <= radius; i++) sum += from[at(line, Math.min(length - 1, Math.max(0, i)))];
+      for (let i = 0; i < length; i++) {
+        to[at(line, i)] = sum / span;
+        sum += from[at(line, Math.min(length - 1, i + radius + 1))] - from[at(line, Math.max(0, i - radius))];
+      }
+    }
+  };
+  runs(widthPx, heightPx, (y, x) => y * widthPx + x, source, across);
+  runs(heightPx, widthPx, (x, y) => y * widthPx + x, across, out);
+  return out;
+}
+
+/** Linear-light picture of the scene with each pixel blurred by its sigma (see defocusSigmas). */
+export function renderDefocused(scene: SceneImage, ladder: BlurLadder, sigmas: Float32Array, out: Float32Array): void {
   const { sigmasPx, images } = ladder;
   const top = sigmasPx.length - 1;
   const pixelCount = scene.widthPx * scene.heightPx;
   for (let pixel = 0; pixel < pixelCount; pixel++) {
-    const sigma = Math.min(sigmasPx[top], sigmaPxPerMm * Math.abs(scene.depthMm[pixel] - focusMm));
+    const sigma = Math.min(sigmasPx[top], sigmas[pixel]);
     let rung = sigma < FIRST_SIGMA ? 0 : Math.min(top - 1, 1 + Math.floor(Math.log(sigma / FIRST_SIGMA) / LOG_RATIO));
     if (rung > 1 && sigmasPx[rung] > sigma) rung--;
     const low = sigmasPx[rung];

@@ -1,9 +1,8 @@
-import { deflateSync } from 'node:zlib';
 import { exifTimeFields, exposureTimeRational, tenthsRational, type CaptureSettings } from './capture-metadata';
 
 /**
- * A "raw-like" companion file: a little-endian TIFF 6.0 with the full RGB picture
- * (Adobe deflate), an EXIF IFD with the capture metadata, and a small JPEG thumbnail in IFD1 —
+ * A "raw-like" companion file: a little-endian baseline TIFF 6.0 with the full RGB picture
+ * (uncompressed, like many raw formats' main image), an EXIF IFD with the capture metadata, and a small JPEG thumbnail in IFD1 —
  * the layout RAW formats built on TIFF share. libvips cannot write EXIF into TIFF, hence this
  * writer. Tag numbers: TIFF 6.0 (Adobe, 1992) and EXIF 2.32 (CIPA DC-008-2019).
  */
@@ -69,11 +68,14 @@ export interface RawLikeInput {
   heightPx: number;
   settings: CaptureSettings;
   thumbnailJpeg: Buffer;
+  thumbnailWidthPx: number;
+  thumbnailHeightPx: number;
 }
 
-export function writeRawLikeTiff({ rgb, widthPx, heightPx, settings, thumbnailJpeg }: RawLikeInput): Buffer {
+export function writeRawLikeTiff(input: RawLikeInput): Buffer {
+  const { rgb, widthPx, heightPx, settings, thumbnailJpeg } = input;
   if (rgb.length !== widthPx * heightPx * 3) throw new Error('raw-like TIFF: pixel buffer does not match its size');
-  const strip = deflateSync(rgb);
+  const strip = rgb;
   const time = exifTimeFields(settings.captureTimeMs, settings.utcOffsetMinutes);
   const exifEntries: Entry[] = [
     { tag: 0x829a, type: 5, values: exposureTimeRational(settings.exposureTimeS) },
@@ -84,6 +86,8 @@ export function writeRawLikeTiff({ rgb, widthPx, heightPx, settings, thumbnailJp
     { tag: 0x9011, type: 2, values: time.offset },
     { tag: 0x9291, type: 2, values: time.subSec },
     { tag: 0x920a, type: 5, values: tenthsRational(settings.focalLengthMm) },
+    { tag: 0xa000, type: 7, values: Buffer.from('0100', 'latin1') },
+    { tag: 0xa001, type: 3, values: [1] },
     { tag: 0xa431, type: 2, values: settings.bodySerial },
   ];
   const ifd0Entries = (stripOffset: number, exifOffset: number): Entry[] => [
@@ -91,7 +95,7 @@ export function writeRawLikeTiff({ rgb, widthPx, heightPx, settings, thumbnailJp
     { tag: 0x0100, type: 4, values: [widthPx] },
     { tag: 0x0101, type: 4, values: [heightPx] },
     { tag: 0x0102, type: 3, values: [8, 8, 8] },
-    { tag: 0x0103, type: 3, values: [8] },
+    { tag: 0x0103, type: 3, values: [1] },
     { tag: 0x0106, type: 3, values: [2] },
     { tag: 0x0111, type: 4, values: [stripOffset] },
     { tag: 0x0112, type: 3, values: [settings.orientation] },
@@ -105,8 +109,13 @@ export function writeRawLikeTiff({ rgb, widthPx, heightPx, settings, thumbnailJp
     { tag: 0x0132, type: 2, values: time.dateTime },
     { tag: 0x8769, type: 4, values: [exifOffset] },
   ];
+  // IFD1: a reduced-resolution JPEG, as TIFF-based raw formats carry their thumbnail
   const ifd1Entries = (thumbOffset: number): Entry[] => [
+    { tag: 0x00fe, type: 4, values: [1] },
+    { tag: 0x0100, type: 4, values: [input.thumbnailWidthPx] },
+    { tag: 0x0101, type: 4, values: [input.thumbnailHeightPx] },
     { tag: 0x0103, type: 3, values: [6] },
+    { tag: 0x0106, type: 3, values: [6] },
     { tag: 0x0201, type: 4, values: [thumbOffset] },
     { tag: 0x0202, type: 4, values: [thumbnailJpeg.length] },
   ];

@@ -1,6 +1,6 @@
 import sharp from 'sharp';
-import { jpegExif, type CaptureSettings } from './capture-metadata';
-import { buildBlurLadder, renderDefocused } from './defocus';
+import { jpegExif, withExifVersion, type CaptureSettings } from './capture-metadata';
+import { buildBlurLadder, defocusSigmas, renderDefocused } from './defocus';
 import { createRandom, fillGrain, randomBetween } from './noise';
 import {
   offsetMinutesOf,
@@ -117,14 +117,15 @@ export async function renderStack(input: RenderStackOptions = {}): Promise<Rende
   const scene = renderScene(options.scene, { widthPx, heightPx, seed, subjectNearMm: nearMm, subjectFarMm: farMm });
   const sigmaPxPerStep = options.blurSigmaPxPerStep ?? (1.2 * widthPx) / 800;
   const sigmaPxPerMm = sigmaPxPerStep / stepMm;
-  const ladder = await buildBlurLadder(scene, Math.max(4, 0.045 * Math.max(widthPx, heightPx)));
+  const maxSigmaPx = Math.max(4, 0.045 * Math.max(widthPx, heightPx));
+  const ladder = await buildBlurLadder(scene, maxSigmaPx);
   const sampleCount = widthPx * heightPx * 3;
   const grain = fillGrain(sampleCount + 3 * 4096, random);
   const linear = new Float32Array(sampleCount);
   const utcOffsetMinutes = options.utcOffsetMinutes ?? offsetMinutesOf(options.startTime);
   const encodings: Promise<RenderedFile[]>[] = [];
   for (let i = 0; i < frameCount; i++) {
-    renderDefocused(scene, ladder, focusDepthsMm[i], sigmaPxPerMm, linear);
+    renderDefocused(scene, ladder, defocusSigmas(scene, focusDepthsMm[i], sigmaPxPerMm, maxSigmaPx), linear);
     const grainOffset = 3 * Math.floor(random() * 4096);
     const rgb = encodeFrame(linear, 2 ** exposureStops[i], grain, grainOffset, options.grainDn);
     const settings: CaptureSettings = {
@@ -147,17 +148,24 @@ async function encodeFiles(rgb: Buffer, frameIndex: number, settings: CaptureSet
   const { widthPx, heightPx } = options;
   const raw = { width: widthPx, height: heightPx, channels: 3 as const };
   const fileNumber = options.firstFileNumber + frameIndex;
-  const jpeg = await sharp(rgb, { raw })
-    .withExif(jpegExif(settings))
-    .withMetadata({ orientation: settings.orientation })
-    .jpeg({ quality: options.jpegQuality })
-    .toBuffer();
+  const jpeg = withExifVersion(
+    await sharp(rgb, { raw }).withExif(jpegExif(settings)).withMetadata({ orientation: settings.orientation }).jpeg({ quality: options.jpegQuality }).toBuffer(),
+    '0232',
+  );
   const files: RenderedFile[] = [
     { name: frameFileName(options.filePrefix, fileNumber, 'JPG'), buffer: jpeg, captureTimeMs: settings.captureTimeMs, kind: 'jpeg', frameIndex },
   ];
   if (options.withRaw) {
-    const thumbnailJpeg = await sharp(rgb, { raw }).resize(160).jpeg({ quality: 80 }).toBuffer();
-    const tiff = writeRawLikeTiff({ rgb, widthPx, heightPx, settings, thumbnailJpeg });
+    const thumbnail = await sharp(rgb, { raw }).resize(160).jpeg({ quality: 80 }).toBuffer({ resolveWithObject: true });
+    const tiff = writeRawLikeTiff({
+      rgb,
+      widthPx,
+      heightPx,
+      settings,
+      thumbnailJpeg: thumbnail.data,
+      thumbnailWidthPx: thumbnail.info.width,
+      thumbnailHeightPx: thumbnail.info.height,
+    });
     files.unshift({ name: frameFileName(options.filePrefix, fileNumber, 'TIF'), buffer: tiff, captureTimeMs: settings.captureTimeMs, kind: 'raw-like', frameIndex });
   }
   return files;

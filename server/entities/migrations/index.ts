@@ -2,5 +2,6 @@
 import { Foundation1733000000000 } from './1733000000000-foundation';
 import { KitAndPlans1733000001000 } from './1733000001000-kit-and-plans';
 import { SessionsAndFrames1733000002000 } from './1733000002000-sessions-and-frames';
+import { StackHandoffColumns1733000003000 } from './1733000003000-stack-handoff-columns';
 
-export const migrations = [Foundation1733000000000, KitAndPlans1733000001000, SessionsAndFrames1733000002000];
+export const migrations = [Foundation1733000000000, KitAndPlans1733000001000, SessionsAndFrames1733000002000, StackHandoffColumns1733000003000];

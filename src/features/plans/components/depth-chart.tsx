@@ -1,6 +1,6 @@
 import { CartesianGrid, Line, LineChart, ReferenceDot, Tooltip, XAxis, YAxis } from 'recharts';
 import { framesFor } from '@shared/optics';
-import { sig } from '@/lib/units';
+import { length, sig } from '@/lib/units';
 
 /** How the frame count grows with the depth to cover, at the planned step; the planned depth is marked. */
 export function DepthChart({ depthMm, stepMm, frames }: { depthMm: number; stepMm: number | null; frames: number }) {
@@ -13,7 +13,7 @@ export function DepthChart({ depthMm, stepMm, frames }: { depthMm: number; stepM
   return (
     <figure className="min-w-0">
       <figcaption className="mb-2 text-sm text-slate">
-        Frames needed for 0 – {sig(maxDepth)} mm of depth at a {sig(stepMm * 1000)} µm step; the plan covers {sig(depthMm)} mm in {frames} frames.
+        Frames needed for 0 – {sig(maxDepth)} mm of depth at a {length(stepMm)} step; the plan covers {sig(depthMm)} mm in {frames} frames.
       </figcaption>
       <LineChart responsive style={{ width: '100%', height: 200 }} data={data} margin={{ top: 12, right: 12, bottom: 16, left: 0 }} accessibilityLayer={false}>
         <CartesianGrid stroke="#D9D4CA" strokeDasharray="2 4" />

@@ -29,7 +29,7 @@ export function PlanFigures({ plan, railStepUm, stableSeconds }: Props) {
     },
     {
       label: 'Airy disk',
-      value: `${sig(plan.airyDiskUm)} µm · ${sig(airyPx, 2)} px`,
+      value: `${sig(plan.airyDiskUm)} µm · ${sig(airyPx)} px`,
       detail: `pixel pitch ${sig(plan.pixelPitchUm)} µm`,
       alert: airyPx > 2.5,
     },

@@ -58,8 +58,8 @@ export function PlannerForm({ kit, state, onChange, errors, cocMm }: Props) {
           <option value="wave">Wave optics</option>
         </SelectField>
         <SelectField label="Circle of confusion" value={state.cocRule} onChange={(e) => onChange({ ...state, cocRule: e.target.value as CocRule, cocUm: cocMm === null ? state.cocUm : sig(cocMm * 1000, 4) })} className="min-w-0">
-          <option value="format">By format (diagonal ÷ 1500)</option>
-          <option value="pixel">Pixel level (2 pixels)</option>
+          <option value="format">By format</option>
+          <option value="pixel">Pixel level</option>
           <option value="custom">Custom</option>
         </SelectField>
         {state.cocRule === 'custom' ? (
@@ -67,7 +67,8 @@ export function PlannerForm({ kit, state, onChange, errors, cocMm }: Props) {
         ) : (
           <div className="flex min-w-0 flex-col gap-1 text-sm">
             <span className="font-medium text-ink">In use</span>
-            <output className="num py-1.5 text-ink" aria-label="Circle of confusion in use">{cocMm === null ? '—' : `${sig(cocMm * 1000)} µm`}</output>
+            <output className="num pt-1.5 text-ink" aria-label="Circle of confusion in use">{cocMm === null ? '—' : `${sig(cocMm * 1000)} µm`}</output>
+            <span className="text-xs text-slate">{state.cocRule === 'format' ? 'sensor diagonal ÷ 1500' : '2 × pixel pitch'}</span>
           </div>
         )}
       </Group>

@@ -57,7 +57,7 @@ export function SweepTable({ sweep }: { sweep: ApertureSweep }) {
                 <td className="num py-1 pr-3 text-right">{count(r.frames)}</td>
                 <td className="num py-1 pr-3 text-right whitespace-nowrap">{r.stepMm === null ? '—' : length(r.stepMm)}</td>
                 <td className={`num py-1 pr-3 text-right whitespace-nowrap ${r.diffractionSoft ? 'text-clay' : ''}`}>
-                  {sig(r.airyDiskPx, 2)} px{r.diffractionSoft ? <span className="ml-1 text-xs">soft</span> : null}
+                  {sig(r.airyDiskPx)} px{r.diffractionSoft ? <span className="ml-1 text-xs">soft</span> : null}
                 </td>
                 <td className="num py-1 pr-3 text-right whitespace-nowrap">{sig(r.lightLossStops)} stops</td>
                 <td className={`num py-1 text-right whitespace-nowrap ${r.overTime ? 'text-clay' : ''}`}>{duration(r.shootSeconds)}</td>

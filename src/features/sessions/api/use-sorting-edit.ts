@@ -1,0 +1,18 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { SortingView } from '@shared/schemas/session-views';
+import { sortingQueryOptions } from './get-sorting';
+import { sessionsQueryOptions } from './get-sessions';
+import { sessionQueryOptions } from './get-session';
+
+/** A change to the sorting whose answer is the new sorting view: it replaces the cached one. */
+export function useSortingEdit<V>(studioId: string, sessionId: string, send: (vars: V) => Promise<SortingView>) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: send,
+    onSuccess: (view) => {
+      qc.setQueryData(sortingQueryOptions(studioId, sessionId).queryKey, view);
+      qc.invalidateQueries({ queryKey: sessionQueryOptions(studioId, sessionId).queryKey, exact: true });
+      qc.invalidateQueries({ queryKey: sessionsQueryOptions(studioId).queryKey, exact: true });
+    },
+  });
+}
