@@ -6,7 +6,9 @@
  *     [--first-number N] [--exposure-jump-at K] [--exposure-stops X] [--exposure-jump-persists]
  *     [--skip-step-at K] [--repeat-at K] [--card] [--force]
  *
- * Frame indexes (K) count from 0. Existing files are never overwritten unless --force is given.
+ * Frame indexes (K) count from 0. --card renders a memory card (several stacks with test shots)
+ * and uses only --seed, --width, --height and --body-serial. Existing files are never
+ * overwritten unless --force is given.
  */
 import fs from 'node:fs/promises';
 import path from 'node:path';
@@ -63,7 +65,7 @@ export function parseRenderStackArgs(argv: string[]): RenderStackCommand {
       },
     }));
   } catch (error) {
-    throw new RangeError(error instanceof Error ? error.message : String(error));
+    throw new RangeError(error instanceof Error ? error.message : String(error), { cause: error });
   }
   if (!values.out) throw new RangeError('--out DIR is required: the folder to write the frames into');
   const options: RenderStackOptions = {

@@ -18,6 +18,9 @@ import { kitRouter } from './routes/kit-routes';
 import { planRouter } from './routes/plan-routes';
 import { healthRouter } from './routes/health-routes';
 import { sessionRouter } from './routes/session-routes';
+import { stackRouter } from './routes/stack-routes';
+import { handoffRouter } from './routes/handoff-routes';
+import { shareRouter } from './routes/share-routes';
 import { registeredRoutes } from './lib/route';
 
 export interface AppOptions {
@@ -73,8 +76,11 @@ export function createApp(options: AppOptions = {}): Express {
   app.use(authRouter());
   app.use(studioRouter());
   app.use(sessionRouter());
+  app.use(stackRouter());
   app.use(kitRouter());
   app.use(planRouter());
+  app.use(handoffRouter());
+  app.use(shareRouter());
   app.use('/api', notFoundApi);
 
   if (options.clientDir && fs.existsSync(options.clientDir)) {

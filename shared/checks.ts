@@ -77,7 +77,7 @@ function exposureJumps(frames: StackCheckFrame[], thresholds: CheckThresholds): 
           `that moved, or a flash that misfired. The merge may show a band at that depth: reshoot that frame at the same focus, ` +
           `or match its exposure to its neighbours before merging.`,
       });
-      returningFromOutlier = outlier;
+      returningFromOutlier = true;
     } else if (i > 0 && Math.abs(fromPrevious) > limit) {
       const direction = fromPrevious > 0 ? 'brighter' : 'darker';
       checks.push({

@@ -13,9 +13,12 @@ import type { CheckRegion, CheckThresholds, StackCheck, StackCheckFrame } from '
  *     either side. D drifts along a stack as more or less of the subject lies near the focus,
  *     so the reference is local (the nearest non-duplicate pair on each side), not global.
  * A gap is reported only where the pair shows real change (at least half the median D), so
- * the blur-only ends of a stack, where nothing is near focus, do not raise false alarms.
- * Limits (by design): a missed step where no part of the subject lies is invisible here, and
- * harmless; a stack whose every step is too large looks uniform and needs the plan check.
+ * the blur-only ends of a stack, where nothing is near focus, do not raise false alarms; and
+ * pairs across an exposure jump are skipped (that check reports them). The region is the cells
+ * whose sharpest frame is one of the pair: the depth that fell into the gap.
+ * Limits: a missed step where no part of the subject lies is invisible here (and harmless); a
+ * subject whose depth bunches up in a few cells (a small, flat-topped specimen) makes D uneven
+ * and can hide a gap; a stack whose every step is too large looks uniform.
  */
 
 const LOG_FLOOR = 1e-3;

@@ -19,6 +19,10 @@ export const QUEUES = {
     name: 'mail',
     payload: z.object({ to: z.string().min(3), subject: z.string().min(1), text: z.string() }),
   },
+  mergedPreview: {
+    name: 'merged-preview',
+    payload: z.object({ mergedResultId: z.uuid() }),
+  },
 } as const;
 
 export type QueueKey = keyof typeof QUEUES;

@@ -4,5 +4,7 @@ import { CaughtMail, Invitation, Membership, PasswordReset, Studio } from './stu
 import { KitBody, KitExtensionSet, KitLens, KitRail } from './kit';
 import { Plan } from './plan';
 import { CardImport, Frame, ShootSession, SortingSnapshot, Stack, StackEvent, StoredFile } from './session';
+import { Bundle, ContactSheet } from './bundle';
+import { MergedResult, ShareLink } from './handoff';
 
-export const entities = [User, Studio, Membership, Invitation, PasswordReset, CaughtMail, KitBody, KitLens, KitExtensionSet, KitRail, Plan, ShootSession, CardImport, StoredFile, Stack, Frame, SortingSnapshot, StackEvent];
+export const entities = [User, Studio, Membership, Invitation, PasswordReset, CaughtMail, KitBody, KitLens, KitExtensionSet, KitRail, Plan, ShootSession, CardImport, StoredFile, Stack, Frame, SortingSnapshot, StackEvent, ShareLink, MergedResult, Bundle, ContactSheet];

@@ -38,6 +38,19 @@ async function apiAs(page: Page) {
 /** A TextField by its label and unit (the unit is part of the label). */
 const input = (page: Page, label: string, unit: string) =>
   page.getByLabel(new RegExp(`^${label.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}\\s*\\(${unit}\\)$`));
+/**
+ * The test's fern stack worked by hand: APS-C (23.5 × 15.6 mm), 50 mm lens on 25 mm of tubes (0.5×),
+ * 4 mm deep, 20 % overlap, 5 µm rail. Wikipedia, "Depth of field" (close-up):
+ * DOF = 2Nc(1 + m)/(m² − (Nc/f)²), c = diagonal / 1500; the step is rounded down to whole rail
+ * steps and n = ⌈depth / step⌉ + 1 (PRODUCT.md, Optics).
+ */
+function fernByHand(fNumber: number) {
+  const c = Math.hypot(23.5, 15.6) / 1500;
+  const dofMm = (2 * fNumber * c * 1.5) / (0.25 - ((fNumber * c) / 50) ** 2);
+  const stepMm = (Math.floor((dofMm * 0.8 * 1000) / 5) * 5) / 1000;
+  return { stepMm, frames: Math.ceil(4 / stepMm) + 1 };
+}
+
 const figure = (page: Page, label: string) => page.locator(`section[aria-labelledby="results-h"] dt:text-is("${label}") + dd`);
 
 describe('the stack planner', () => {
@@ -67,7 +80,6 @@ describe('the stack planner', () => {
     await railForm.getByRole('button', { name: 'Add rail' }).click();
     await page.getByRole('cell', { name: rail, exact: true }).waitFor();
     await expectNoSeriousA11yViolations(page);
-    await page.screenshot({ path: '/tmp/kit1.png', fullPage: true }); // DEBUG
 
     await page.goto(`${h.baseUrl}/planner`);
     await page.getByRole('heading', { name: 'Results' }).waitFor();
@@ -88,12 +100,7 @@ describe('the stack planner', () => {
 
     // Thin lens (extension-tube tutorials): 25 mm of tubes on a 50 mm lens at infinity → 0.5×.
     await expect.poll(() => figure(page, 'Magnification').textContent()).toBe('0.5×');
-    // Wikipedia, "Depth of field" (close-up): DOF = 2Nc(1 + m)/(m² − (Nc/f)²), c = diagonal / 1500;
-    // the step is rounded down to whole 5 µm rail steps and n = ⌈depth / step⌉ + 1 (PRODUCT.md, Optics).
-    const c = Math.hypot(23.5, 15.6) / 1500;
-    const dofMm = (2 * 8 * c * 1.5) / (0.25 - ((8 * c) / 50) ** 2);
-    const stepMm = (Math.floor((dofMm * 0.8 * 1000) / 5) * 5) / 1000;
-    const frames = Math.ceil(4 / stepMm) + 1;
+    const { stepMm, frames } = fernByHand(8);
     await expect.poll(() => figure(page, 'Frames').first().textContent()).toBe(String(frames));
     planFrames = frames;
 
@@ -120,7 +127,6 @@ describe('the stack planner', () => {
     await page.getByRole('heading', { name: `Fern frond ${tag}` }).waitFor();
     expect(page.url()).toMatch(/\/plans\/[0-9a-f-]{36}$/);
     planUrl = page.url();
-    await page.screenshot({ path: '/tmp/plan1.png', fullPage: true }); // DEBUG
     await expect.poll(() => figure(page, 'Frames').first().textContent()).toBe(String(frames));
 
     await page.getByRole('link', { name: 'Print' }).click();
@@ -174,6 +180,31 @@ describe('the stack planner', () => {
     const refused = await api.patch(`/plans/${planId}`, { name: 'Changed by a guest' });
     expect(refused.status()).toBe(403);
     expect((await (await api.get(`/plans/${planId}`)).json()).name).toBe(`Fern frond ${tag}`);
+    await signOutThroughShell(page);
+    await page.close();
+  });
+
+  it('duplicates a plan and edits the copy in the planner, leaving the original as it was', async () => {
+    await h.context.clearCookies();
+    const page = await h.context.newPage();
+    await signInThroughForm(page, h.baseUrl, demo('photographer').email, demo('photographer').password);
+    await page.goto(planUrl);
+    await page.getByRole('button', { name: 'Duplicate' }).click();
+    await page.getByRole('heading', { name: `Fern frond ${tag} (copy)` }).waitFor();
+    const copyUrl = page.url();
+    expect(copyUrl).not.toBe(planUrl);
+    await page.getByRole('link', { name: 'Edit in planner' }).click();
+    await page.getByRole('heading', { name: `Planner: Fern frond ${tag} (copy)` }).waitFor();
+    await input(page, 'Aperture', 'f-number').fill('5.6');
+    const { frames } = fernByHand(5.6);
+    await expect.poll(() => figure(page, 'Frames').first().textContent()).toBe(String(frames));
+    await page.getByRole('button', { name: 'Save changes' }).click();
+    await page.waitForURL(copyUrl);
+    await expect.poll(() => figure(page, 'Frames').first().textContent()).toBe(String(frames));
+    const api = await apiAs(page);
+    const original = await (await api.get(`/plans/${planUrl.split('/').at(-1)}`)).json();
+    expect(original.inputs.fNumber).toBe(8);
+    expect(original.result.frames).toBe(planFrames);
     await signOutThroughShell(page);
     await page.close();
   });

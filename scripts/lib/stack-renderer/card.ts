@@ -29,7 +29,8 @@ export const cardOptionsSchema = z
     firstFileNumber: z.number().int().min(1).max(9999).default(1),
     /** minutes between the end of one stack and the next test shot */
     minutesBetweenStacks: z.tuple([z.number().positive(), z.number().positive()]).default([3, 12]),
-    stacks: z.array(cardStackSchema).min(1).max(40).default([
+    // prefault: the default goes through the schema, so each stack gets its own defaults
+    stacks: z.array(cardStackSchema).min(1).max(40).prefault([
       { frameCount: 18, scene: 'drop-on-leaf', withRaw: true },
       { frameCount: 14, scene: 'beetle', faults: { exposureJumpAt: 6 } },
       { frameCount: 12, scene: 'drop-on-leaf', faults: { skipStepAt: 5 } },

@@ -106,19 +106,24 @@ export function defocusSigmas(scene: SceneImage, focusMm: number, sigmaPxPerMm: 
 function boxBlur(source: Float32Array, widthPx: number, heightPx: number, radius: number): Float32Array {
   const across = new Float32Array(source.length);
   const out = new Float32Array(source.length);
-  const span = 2 * radius + 1;
-  const runs = (length: number, count: number, at: (line: number, i: number) => number, from: Float32Array, to: Float32Array) => {
-    for (let line = 0; line < count; line++) {
-      let sum = 0;
-      for (let i = -radius; i <= radius; i++) sum += from[at(line, Math.min(length - 1, Math.max(0, i)))];
-      for (let i = 0; i < length; i++) {
-        to[at(line, i)] = sum / span;
-        sum += from[at(line, Math.min(length - 1, i + radius + 1))] - from[at(line, Math.max(0, i - radius))];
-      }
+  const scale = 1 / (2 * radius + 1);
+  for (let y = 0; y < heightPx; y++) {
+    const row = y * widthPx;
+    let sum = 0;
+    for (let i = -radius; i <= radius; i++) sum += source[row + Math.min(widthPx - 1, Math.max(0, i))];
+    for (let x = 0; x < widthPx; x++) {
+      across[row + x] = sum * scale;
+      sum += source[row + Math.min(widthPx - 1, x + radius + 1)] - source[row + Math.max(0, x - radius)];
     }
-  };
-  runs(widthPx, heightPx, (y, x) => y * widthPx + x, source, across);
-  runs(heightPx, widthPx, (x, y) => y * widthPx + x, across, out);
+  }
+  for (let x = 0; x < widthPx; x++) {
+    let sum = 0;
+    for (let i = -radius; i <= radius; i++) sum += across[Math.min(heightPx - 1, Math.max(0, i)) * widthPx + x];
+    for (let y = 0; y < heightPx; y++) {
+      out[y * widthPx + x] = sum * scale;
+      sum += across[Math.min(heightPx - 1, y + radius + 1) * widthPx + x] - across[Math.max(0, y - radius) * widthPx + x];
+    }
+  }
   return out;
 }
 

@@ -2,8 +2,8 @@ import { exifTimeFields, exposureTimeRational, tenthsRational, type CaptureSetti
 
 /**
  * A "raw-like" companion file: a little-endian baseline TIFF 6.0 with the full RGB picture
- * (uncompressed, like many raw formats' main image), an EXIF IFD with the capture metadata, and a small JPEG thumbnail in IFD1 —
- * the layout RAW formats built on TIFF share. libvips cannot write EXIF into TIFF, hence this
+ * (uncompressed, like many raw formats' main image), an EXIF IFD with the capture metadata, and a
+ * reduced-resolution copy in IFD1 — the layout RAW formats built on TIFF share. libvips cannot write EXIF into TIFF, hence this
  * writer. Tag numbers: TIFF 6.0 (Adobe, 1992) and EXIF 2.32 (CIPA DC-008-2019).
  */
 type Entry = { tag: number; type: 2 | 3 | 4 | 5 | 7; values: number[] | string | Buffer };
@@ -67,13 +67,15 @@ export interface RawLikeInput {
   widthPx: number;
   heightPx: number;
   settings: CaptureSettings;
-  thumbnailJpeg: Buffer;
+  /** 8-bit RGB of the reduced-resolution copy */
+  thumbnailRgb: Buffer;
   thumbnailWidthPx: number;
   thumbnailHeightPx: number;
 }
 
 export function writeRawLikeTiff(input: RawLikeInput): Buffer {
-  const { rgb, widthPx, heightPx, settings, thumbnailJpeg } = input;
+  const { rgb, widthPx, heightPx, settings, thumbnailRgb, thumbnailWidthPx, thumbnailHeightPx } = input;
+  if (thumbnailRgb.length !== thumbnailWidthPx * thumbnailHeightPx * 3) throw new Error('raw-like TIFF: thumbnail does not match its size');
   if (rgb.length !== widthPx * heightPx * 3) throw new Error('raw-like TIFF: pixel buffer does not match its size');
   const strip = rgb;
   const time = exifTimeFields(settings.captureTimeMs, settings.utcOffsetMinutes);
@@ -109,15 +111,18 @@ export function writeRawLikeTiff(input: RawLikeInput): Buffer {
     { tag: 0x0132, type: 2, values: time.dateTime },
     { tag: 0x8769, type: 4, values: [exifOffset] },
   ];
-  // IFD1: a reduced-resolution JPEG, as TIFF-based raw formats carry their thumbnail
   const ifd1Entries = (thumbOffset: number): Entry[] => [
     { tag: 0x00fe, type: 4, values: [1] },
-    { tag: 0x0100, type: 4, values: [input.thumbnailWidthPx] },
-    { tag: 0x0101, type: 4, values: [input.thumbnailHeightPx] },
-    { tag: 0x0103, type: 3, values: [6] },
-    { tag: 0x0106, type: 3, values: [6] },
-    { tag: 0x0201, type: 4, values: [thumbOffset] },
-    { tag: 0x0202, type: 4, values: [thumbnailJpeg.length] },
+    { tag: 0x0100, type: 4, values: [thumbnailWidthPx] },
+    { tag: 0x0101, type: 4, values: [thumbnailHeightPx] },
+    { tag: 0x0102, type: 3, values: [8, 8, 8] },
+    { tag: 0x0103, type: 3, values: [1] },
+    { tag: 0x0106, type: 3, values: [2] },
+    { tag: 0x0111, type: 4, values: [thumbOffset] },
+    { tag: 0x0115, type: 3, values: [3] },
+    { tag: 0x0116, type: 4, values: [thumbnailHeightPx] },
+    { tag: 0x0117, type: 4, values: [thumbnailRgb.length] },
+    { tag: 0x011c, type: 3, values: [1] },
   ];
   const ifd0Offset = 8;
   const ifd0Length = ifdSize(ifd0Entries(0, 0));
@@ -126,15 +131,15 @@ export function writeRawLikeTiff(input: RawLikeInput): Buffer {
   const ifd1Offset = exifOffset + exifLength;
   const ifd1Length = ifdSize(ifd1Entries(0));
   const thumbOffset = ifd1Offset + ifd1Length;
-  const stripOffset = thumbOffset + thumbnailJpeg.length + (thumbnailJpeg.length % 2);
+  const stripOffset = thumbOffset + thumbnailRgb.length + (thumbnailRgb.length % 2);
   const header = Buffer.from([0x49, 0x49, 42, 0, ifd0Offset, 0, 0, 0]);
   return Buffer.concat([
     header,
     encodeIfd(ifd0Entries(stripOffset, exifOffset), ifd0Offset, ifd1Offset),
     encodeIfd(exifEntries, exifOffset, 0),
     encodeIfd(ifd1Entries(thumbOffset), ifd1Offset, 0),
-    thumbnailJpeg,
-    Buffer.alloc(thumbnailJpeg.length % 2),
+    thumbnailRgb,
+    Buffer.alloc(thumbnailRgb.length % 2),
     strip,
   ]);
 }

@@ -156,13 +156,13 @@ async function encodeFiles(rgb: Buffer, frameIndex: number, settings: CaptureSet
     { name: frameFileName(options.filePrefix, fileNumber, 'JPG'), buffer: jpeg, captureTimeMs: settings.captureTimeMs, kind: 'jpeg', frameIndex },
   ];
   if (options.withRaw) {
-    const thumbnail = await sharp(rgb, { raw }).resize(160).jpeg({ quality: 80 }).toBuffer({ resolveWithObject: true });
+    const thumbnail = await sharp(rgb, { raw }).resize(160).raw().toBuffer({ resolveWithObject: true });
     const tiff = writeRawLikeTiff({
       rgb,
       widthPx,
       heightPx,
       settings,
-      thumbnailJpeg: thumbnail.data,
+      thumbnailRgb: thumbnail.data,
       thumbnailWidthPx: thumbnail.info.width,
       thumbnailHeightPx: thumbnail.info.height,
     });

@@ -67,21 +67,21 @@ export function KitSection<K extends KitKind>({ studioId, config, items, canEdit
             </thead>
             <tbody>
               {items.map((item) => (
-                <tr key={item.id} className="border-b border-rule/60 align-top">
+                <tr key={item.id} className="border-b border-rule/60">
                   {config.columns.map((c) => (
                     <td key={c.header} className={`py-2 pr-4 ${c.numeric ? 'num text-right whitespace-nowrap' : ''}`}>{c.cell(item)}</td>
                   ))}
                   {canEdit ? (
                     <td className="py-2 text-right whitespace-nowrap">
                       <Button variant="quiet" aria-label={`Edit ${item.name}`} onClick={() => setEditing(item.id)}>Edit</Button>
-                      <Button
-                        variant="quiet"
-                        className="text-clay"
+                      <button
+                        type="button"
+                        className="px-3 py-1.5 text-sm font-medium text-clay underline-offset-2 hover:underline"
                         aria-label={`Delete ${item.name}`}
                         onClick={() => { if (window.confirm(`Delete “${item.name}” from the kit? Saved plans keep their figures.`)) remove.mutate(item.id); }}
                       >
                         Delete
-                      </Button>
+                      </button>
                     </td>
                   ) : null}
                 </tr>

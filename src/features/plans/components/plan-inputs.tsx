@@ -30,7 +30,7 @@ export function PlanInputs({ plan, kit }: { plan: PlanView; kit: Kit | undefined
     ['Subject stays still for', p.stableSeconds === undefined ? 'not set' : duration(p.stableSeconds)],
   ];
   return (
-    <dl className="grid grid-cols-1 gap-x-6 gap-y-1 text-sm sm:grid-cols-2">
+    <dl className="grid grid-cols-1 gap-x-6 gap-y-1 text-sm sm:grid-cols-2 lg:grid-cols-1">
       {rows.map(([label, value]) => (
         <div key={label} className="flex min-w-0 justify-between gap-3 border-b border-rule/60 py-1">
           <dt className="text-slate">{label}</dt>

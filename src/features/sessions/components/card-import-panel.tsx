@@ -1,5 +1,6 @@
 import { useState, type DragEvent } from 'react';
 import { Button } from '@/components/button';
+import { ProgressBar } from '@/components/progress-bar';
 import { count } from '@/lib/units';
 import { useCardImport } from '../hooks/use-card-import';
 import { importTotals, PARALLEL_UPLOADS, type ImportItem } from '../lib/card-import-engine';
@@ -55,14 +56,14 @@ export function CardImportPanel({ studioId, sessionId }: { studioId: string; ses
       {snapshot.phase !== 'idle' ? (
         <div className="mt-4 rounded border border-rule bg-card p-4">
           <div className="flex flex-wrap items-baseline justify-between gap-2">
-            <label htmlFor="import-progress" className="text-sm font-medium">
+            <p className="text-sm font-medium" data-testid="import-phase">
               {phaseText(snapshot.phase)} · <span className="num">{totals.percent} %</span>
-            </label>
+            </p>
             <span className="num text-sm text-slate">
               {count(totals.settled)} of {count(snapshot.items.length)} files · {bytes(totals.doneBytes)} of {bytes(totals.totalBytes)}
             </span>
           </div>
-          <progress id="import-progress" className="mt-2 h-2 w-full accent-moss" max={100} value={totals.percent} />
+          <div className="mt-2"><ProgressBar id="import-progress" label="Whole import" percent={totals.percent} /></div>
           <p className="num mt-2 text-sm text-slate" role="status">
             {count(totals.stored)} stored · {count(totals.duplicate)} already there · {count(totals.refused)} refused · {count(totals.failed)} failed
             {snapshot.hiddenCount ? ` · ${count(snapshot.hiddenCount)} hidden system files left out` : ''}
@@ -119,7 +120,7 @@ function FileRow({ item }: { item: ImportItem }) {
     <li className="grid grid-cols-[minmax(0,1fr)_6rem_7rem_6rem] items-center gap-3 border-b border-rule/60 py-1">
       <span className="truncate" title={item.path}>{item.path}</span>
       <span className="num text-right text-slate">{bytes(item.sizeBytes)}</span>
-      <progress className="h-1.5 w-full accent-moss" max={100} value={pct} aria-label={`${item.path} progress`} />
+      <ProgressBar thin label={item.path} percent={pct} />
       <span className={`text-xs ${STATUS_TONE[item.status] ?? 'text-slate'}`} title={item.message ?? undefined}>{STATUS_TEXT[item.status]}</span>
     </li>
   );

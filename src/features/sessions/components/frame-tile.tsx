@@ -25,10 +25,12 @@ export function FrameTile({ frame, number, previewUrl, selected, selectable, con
         type="button"
         aria-pressed={selectable ? selected : undefined}
         onClick={selectable ? onToggle : undefined}
-        aria-label={`Frame ${number} of ${context}: ${frame.fileName}, ${captureTime(frame.captureTimeMs)}${frame.excluded ? ', excluded' : ''}${fileFlags.length ? `, ${fileFlags.map(flagLabel).join(', ')}` : ''}`}
         title={frame.fileName}
         className={`flex w-full flex-col rounded border p-1 text-left text-xs ${selected ? 'border-moss bg-moss/10 ring-2 ring-moss' : 'border-rule bg-card hover:border-slate'} ${frame.excluded ? 'opacity-60' : ''}`}
       >
+        <span className="sr-only">
+          Frame {number} of {context}: {frame.fileName}{frame.excluded ? ', excluded' : ''}{fileFlags.length ? `, ${fileFlags.map(flagLabel).join(', ')}` : ''}.
+        </span>
         <Thumb frame={frame} url={previewUrl} />
         <span className="num mt-1 flex items-center justify-between gap-1">
           <span className="font-semibold">{number}</span>

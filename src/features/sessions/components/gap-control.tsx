@@ -31,11 +31,11 @@ export function GapControl({ options, disabled, pending, onRegroup }: { options:
     <fieldset className="rounded border border-rule bg-card p-3" disabled={disabled}>
       <legend className="px-1 text-sm font-semibold">Gap rule</legend>
       <div className="flex flex-wrap items-start gap-4">
-        <TextField label="Gap factor" unit="× median gap" type="number" inputMode="decimal" step={0.5} min={1} max={50} className="w-36"
+        <TextField label="Gap factor" unit="× median gap" type="number" inputMode="decimal" step={0.5} min={1} max={50} className="w-44"
           value={text.gapFactor} onChange={(e) => change('gapFactor', e.target.value)} error={problem.gapFactor} />
         <TextField label="Smallest gap" unit="s" type="number" inputMode="decimal" step={0.5} min={0} max={3600} className="w-32"
           value={text.minGapS} onChange={(e) => change('minGapS', e.target.value)} error={problem.minGapS} />
-        <TextField label="Smallest stack" unit="frames" type="number" inputMode="numeric" step={1} min={2} max={100} className="w-32"
+        <TextField label="Smallest stack" unit="frames" type="number" inputMode="numeric" step={1} min={2} max={100} className="w-36"
           value={text.minStackSize} onChange={(e) => change('minStackSize', e.target.value)} error={problem.minStackSize} />
         <p className="max-w-sm text-xs text-slate">
           A new stack starts where the pause before a frame is longer than the factor times the recent pauses, and longer than the smallest gap.

@@ -65,13 +65,13 @@ export function StackRow({ stack, isLast, canEdit, busy, plans, selected, previe
       {canEdit ? (
         <div className="mt-2 flex flex-wrap items-center gap-2">
           {!editable ? <span className="text-sm text-slate">This stack is {stack.state}; it is no longer edited here.</span> : null}
-          {editable && !renaming ? <Button variant="secondary" disabled={busy} onClick={() => { setName(stack.name); setRenaming(true); }}>Rename</Button> : null}
+          {editable && !renaming ? <Button variant="secondary" disabled={busy} onClick={() => { setName(stack.name); setRenaming(true); }} aria-label={`Rename (${stack.name})`}>Rename</Button> : null}
           {editable ? (
             stack.state === 'draft'
-              ? <Button disabled={busy} onClick={() => onState('ready')} aria-label={`Mark ${stack.name} ready`}>Mark ready</Button>
-              : <Button variant="secondary" disabled={busy} onClick={() => onState('draft')} aria-label={`Return ${stack.name} to draft`}>Back to draft</Button>
+              ? <Button disabled={busy} onClick={() => onState('ready')} aria-label={`Mark ready (${stack.name})`}>Mark ready</Button>
+              : <Button variant="secondary" disabled={busy} onClick={() => onState('draft')} aria-label={`Back to draft (${stack.name})`}>Back to draft</Button>
           ) : null}
-          {editable ? <Button variant="secondary" disabled={busy || isLast} onClick={onMergeNext} aria-label={`Merge ${stack.name} with the next stack`}>Merge with next</Button> : null}
+          {editable ? <Button variant="secondary" disabled={busy || isLast} onClick={onMergeNext} aria-label={`Merge with next (${stack.name})`}>Merge with next</Button> : null}
           <label className="flex items-center gap-2 text-sm">
             <span className="text-slate">Plan</span>
             <select
