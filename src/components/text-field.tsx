@@ -16,7 +16,7 @@ export function TextField({ label, error, hint, unit, className = '', id, ...res
     <div className={`flex flex-col gap-1 ${className}`}>
       <label htmlFor={inputId} className="text-sm font-medium text-ink">
         {label}
-        {unit ? <span className="ml-1 font-normal text-slate">({unit})</span> : null}
+        {unit ? <> <span className="font-normal text-slate">({unit})</span></> : null}
       </label>
       <input
         id={inputId}
