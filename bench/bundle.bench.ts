@@ -1,7 +1,7 @@
 // Bundle throughput and memory: Lamella's writeBundle (STORE zip, streamed) against Info-ZIP
 // `zip -0 -q` on the same files, and the bundling process's peak RSS at two bundle sizes (it
 // must not grow with the bundle). Run: npx tsx bench/bundle.bench.ts
-// BUNDLE_BENCH_MB (default 300) sets the size, BUNDLE_BENCH_RUNS (default 2) the runs; files are
+// BUNDLE_BENCH_MB (default 300) or BENCH_BUNDLE_GB sets the size, BUNDLE_BENCH_RUNS (default 2) the runs; files are
 // 25 MB, about one RAW each.
 import { execFile, spawn } from 'node:child_process';
 import { createHash, randomBytes } from 'node:crypto';
@@ -14,7 +14,8 @@ import { fileURLToPath } from 'node:url';
 import { promisify } from 'node:util';
 import { writeBundle, type WriteBundleInput } from '../worker/lib/bundle';
 
-const TOTAL_MB = Number(process.env.BUNDLE_BENCH_MB ?? 300);
+// BENCH_BUNDLE_GB (opt-in, e.g. 2) measures the bundler's peak memory on a bundle of that many GB.
+const TOTAL_MB = process.env.BENCH_BUNDLE_GB ? Number(process.env.BENCH_BUNDLE_GB) * 1024 : Number(process.env.BUNDLE_BENCH_MB ?? 300);
 const FILE_MB = 25;
 const RSS_LIMIT_MB = 250;
 const RUNS = Number(process.env.BUNDLE_BENCH_RUNS ?? 2);

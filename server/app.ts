@@ -21,6 +21,7 @@ import { sessionRouter } from './routes/session-routes';
 import { stackRouter } from './routes/stack-routes';
 import { handoffRouter } from './routes/handoff-routes';
 import { shareRouter } from './routes/share-routes';
+import { checkRouter } from './routes/check-routes';
 import { registeredRoutes } from './lib/route';
 
 export interface AppOptions {
@@ -81,6 +82,7 @@ export function createApp(options: AppOptions = {}): Express {
   app.use(planRouter());
   app.use(handoffRouter());
   app.use(shareRouter());
+  app.use(checkRouter());
   app.use('/api', notFoundApi);
 
   if (options.clientDir && fs.existsSync(options.clientDir)) {

@@ -23,6 +23,10 @@ export const QUEUES = {
     name: 'merged-preview',
     payload: z.object({ mergedResultId: z.uuid() }),
   },
+  stackChecks: {
+    name: 'stack-checks',
+    payload: z.object({ stackId: z.uuid(), version: z.number().int().positive() }),
+  },
 } as const;
 
 export type QueueKey = keyof typeof QUEUES;

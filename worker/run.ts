@@ -7,6 +7,7 @@ import { stackSheetFailed, stackSheetJob } from './jobs/stack-sheet';
 import { bundleFailed, bundleJob } from './jobs/bundle';
 import { mailJob } from './jobs/mail';
 import { mergedPreviewFailed, mergedPreviewJob } from './jobs/merged-preview';
+import { stackChecksJob } from './jobs/stack-checks';
 import { logger } from '../server/lib/logger';
 
 type Handler = { run: (job: Job, token?: string) => Promise<unknown>; failed?: (data: never, err: Error) => Promise<void>; concurrency: number };
@@ -19,6 +20,8 @@ export const HANDLERS: Partial<Record<QueueKey, Handler>> = {
   bundle: { run: bundleJob as Handler['run'], failed: bundleFailed as Handler['failed'], concurrency: 1 },
   mail: { run: mailJob as Handler['run'], concurrency: 4 },
   mergedPreview: { run: mergedPreviewJob as Handler['run'], failed: mergedPreviewFailed as Handler['failed'], concurrency: 1 },
+  // Checks read the database and compute for milliseconds.
+  stackChecks: { run: stackChecksJob as Handler['run'], concurrency: 2 },
 };
 
 // A job whose worker died is taken up again once its lock runs out (BullMQ's stalled-job check).
@@ -41,7 +44,8 @@ export function startWorkers(connection: Redis): Worker[] {
     );
     worker.on('failed', (job, err) => {
       if (!job) return;
-      const finalAttempt = job.attemptsMade >= (job.opts.attempts ?? 1);
+      // A job whose workers died more often than maxStalledCount is failed by BullMQ without retries.
+      const finalAttempt = job.attemptsMade >= (job.opts.attempts ?? 1) || /stalled more than allowable limit/.test(err.message);
       logger.warn({ queue: def.name, jobId: job.id, attempt: job.attemptsMade, err: err.message }, 'job failed');
       if (finalAttempt && h.failed) h.failed(job.data as never, err).catch((e) => logger.error({ err: e }, 'could not record job failure'));
     });

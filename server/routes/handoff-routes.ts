@@ -11,6 +11,7 @@ import { getStore } from '../lib/storage';
 import { addShareLink, archiveStack, handOffStack, revokeShareLink, takeBackStack, type Editor } from '../services/handoff-service';
 import { handoffView, myHandoffs } from '../services/handoff-view-service';
 import { downloadAsMember } from '../services/handoff-download';
+import { askForBundle } from '../services/handoff-bundle';
 import { attachMergedResult, mergedResultOf } from '../services/merged-result-service';
 import { stackForMember } from '../services/stack-access';
 import { mergedFileOf, receiveMergedFile, sendStream } from './handoff-helpers';
@@ -76,6 +77,14 @@ export function handoffRouter(): Router {
       handler: async (req, res) => {
         const bundle = await downloadAsMember(req.member!, { id: req.user!.id, label: labelOf(req) }, stackIdOf(req));
         await sendStream(res, bundle.stream, { type: 'application/zip', sizeBytes: bundle.sizeBytes, fileName: bundle.fileName });
+      },
+    },
+    {
+      method: 'post', path: '/stacks/:stackId/handoff/bundle', access: workers,
+      handler: async (req, res) => {
+        const { stack } = await stackForMember(req.member!, req.user!.id, stackIdOf(req));
+        const { status, sizeBytes } = await askForBundle(stack, req.user!.id);
+        res.status(status === 'ready' ? 200 : 202).json({ status, sizeBytes });
       },
     },
     {

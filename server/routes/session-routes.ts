@@ -86,8 +86,14 @@ export function sessionRouter(): Router {
       handler: async (req, res) => {
         const files = (req.files ?? []) as (Express.Multer.File & ReceivedCardFile)[];
         if (!Array.isArray(files) || files.length === 0) throw new BadInput('Send one or more files in the "files" field of a multipart form.');
-        const outcomes = await recordUploadedFiles(req.member!.studioId, String(req.params.sessionId), String(req.params.importId), files, mtimesOf(req.body ?? {}, files.length));
-        res.status(201).json({ files: outcomes });
+        try {
+          const outcomes = await recordUploadedFiles(req.member!.studioId, String(req.params.sessionId), String(req.params.importId), files, mtimesOf(req.body ?? {}, files.length));
+          res.status(201).json({ files: outcomes });
+        } catch (err) {
+          // A refused request (no such session or import here) keeps no received temp file.
+          await Promise.all(files.map((f) => f.discard?.()));
+          throw err;
+        }
       },
     },
     {

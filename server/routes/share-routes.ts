@@ -6,6 +6,7 @@ import { getStore } from '../lib/storage';
 import { openShareLink, type OpenedLink } from '../services/share-link-service';
 import { sharePageView } from '../services/handoff-view-service';
 import { downloadThroughLink } from '../services/handoff-download';
+import { askForBundle } from '../services/handoff-bundle';
 import { attachMergedResult } from '../services/merged-result-service';
 import { contactSheetKey } from '../services/contact-sheet-service';
 import { mergedFileOf, receiveMergedFile, sendStream } from './handoff-helpers';
@@ -35,6 +36,14 @@ export function shareRouter(): Router {
       handler: async (req, res) => {
         const bundle = await downloadThroughLink(await openShareLink(tokenOf(req)));
         await sendStream(res, bundle.stream, { type: 'application/zip', sizeBytes: bundle.sizeBytes, fileName: bundle.fileName });
+      },
+    },
+    {
+      method: 'post', path: '/bundle', access: PUBLIC,
+      handler: async (req, res) => {
+        const { stack, link } = await openShareLink(tokenOf(req));
+        const { status, sizeBytes } = await askForBundle(stack, link.createdBy);
+        res.status(status === 'ready' ? 200 : 202).json({ status, sizeBytes });
       },
     },
     {

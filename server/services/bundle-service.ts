@@ -44,7 +44,13 @@ function toView(b: Bundle, versions: Map<string, number>): BundleView {
 }
 
 export async function bundleView(b: Bundle): Promise<BundleView> {
-  return toView(b, await currentVersions(Object.keys(b.stackVersions)));
+  const view = toView(b, await currentVersions(Object.keys(b.stackVersions)));
+  if (b.kind === 'session' && !view.stale) {
+    // A stack marked ready since is missing from the bundle: that makes it stale too.
+    const now = await getDataSource().getRepository(Stack).find({ where: { sessionId: b.sessionId, state: In([...SESSION_BUNDLE_STATES]) }, select: { id: true } });
+    view.stale = now.some((s) => !(s.id in b.stackVersions));
+  }
+  return view;
 }
 
 async function includedFrameCount(stackIds: string[]): Promise<number> {

@@ -40,13 +40,21 @@ export async function prepareBundleForHandoff(stackId: string, actorUserId: stri
   }
 }
 
+/** Asks for the bundle of the stack's current version unless one is ready or being made. */
+export async function askForBundle(stack: Stack, actorUserId: string | null): Promise<BundleState> {
+  const state = await bundleStateOf(stack);
+  if (state.status !== 'none') return state;
+  await requestStackBundle(stack.id, actorUserId);
+  return bundleStateOf(stack);
+}
+
 export interface OpenedBundle {
   stream: Readable;
   sizeBytes: number;
   fileName: string;
 }
 
-const PREPARING = 'The bundle is being prepared. Try again in a minute.';
+const PREPARING = 'The bundle is being prepared, try again in a minute.';
 
 /** The ready bundle, or a 409 after asking for one when none is ready. */
 export async function openStackBundle(stack: Stack, actorUserId: string | null): Promise<OpenedBundle> {

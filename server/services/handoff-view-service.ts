@@ -91,10 +91,12 @@ export async function myHandoffs(studioId: string, userId: string): Promise<MyHa
       [id],
     );
     const merged = await latestMergedResult(stack.id);
+    const bundle = await bundleStateOf(stack);
     out.push({
       stackId: stack.id,
       stackName: stack.name,
       state: stack.state,
+      version: stack.version,
       sessionId: session.id,
       sessionTitle: session.title,
       shootDate: session.shootDate,
@@ -103,6 +105,7 @@ export async function myHandoffs(studioId: string, userId: string): Promise<MyHa
       handedOffBy: by?.actor_label ?? '',
       mergedAt: stack.mergedAt?.toISOString() ?? null,
       contactSheetAvailable: await contactSheetReady(stack),
+      bundle: { status: bundle.status, sizeBytes: bundle.sizeBytes },
       mergedResult: merged ? mergedResultView(merged) : null,
     });
   }

@@ -10,6 +10,7 @@ import { pairRawAndJpeg, type CardFile } from '../../shared/raw-pairing';
 import { groupingOptionsSchema, type GroupingOptionsInput } from '../../shared/schemas/sessions';
 import { NotFound } from '../lib/errors';
 import { sessionInStudio } from './session-service';
+import { queueChecksAfterChange } from './check-results-service';
 
 type Meta = { exposureTimeS?: number | null; fNumber?: number | null; iso?: number | null; focalLengthMm?: number | null; orientation?: number | null; bodySerial?: string | null; fileNumber?: number | null };
 
@@ -114,7 +115,7 @@ export async function takeSnapshot(tx: EntityManager, sessionId: string, label: 
 /** Restores the arrangement before the last change. Stacks moved past ready since then are kept. */
 export async function undoLast(studioId: string, sessionId: string): Promise<{ undone: string }> {
   await sessionInStudio(studioId, sessionId);
-  return getDataSource().transaction(async (tx) => {
+  const undone = await getDataSource().transaction(async (tx) => {
     await lockSession(tx, sessionId);
     const last = await tx.getRepository(SortingSnapshot).findOne({ where: { sessionId }, order: { createdAt: 'DESC' } });
     if (!last) throw new NotFound('Nothing to undo.');
@@ -141,6 +142,8 @@ export async function undoLast(studioId: string, sessionId: string): Promise<{ u
     await tx.getRepository(SortingSnapshot).delete({ id: last.id });
     return { undone: last.label };
   });
+  await queueChecksAfterChange(sessionId);
+  return undone;
 }
 
 const pad = (n: number) => String(n).padStart(2, '0');
@@ -205,5 +208,6 @@ export async function regroupSession(studioId: string, sessionId: string, userId
     return needPreview;
   });
   await enqueueMany('framePreview', needPreview.map((frameId) => ({ payload: { frameId, sessionId }, jobId: `preview:${frameId}` })));
+  await queueChecksAfterChange(sessionId);
   return { previewsQueued: needPreview.length };
 }

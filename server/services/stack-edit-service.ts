@@ -11,6 +11,7 @@ import type { StackPatch } from '../../shared/schemas/stack-edits';
 import { lockSession, takeSnapshot } from './sorting-service';
 import { sortingView } from './sorting-view-service';
 import { sessionInStudio } from './session-service';
+import { queueChecksAfterChange } from './check-results-service';
 import {
   assertEditable, bumpVersions, fieldError, framesByIds, framesOfStack, mergeByCaptureTime, nextFreeName,
   placeFrames, plural, recordEvent, renumberStacks, stackIn, stacksOf, type Actor,
@@ -34,6 +35,7 @@ async function editSorting(studioId: string, sessionId: string, actor: Actor, ed
     const stacks = await stacksOf(tx, sessionId);
     await edit({ tx, sessionId, stacks, snapshot: (label) => takeSnapshot(tx, sessionId, label, actor.userId) });
   });
+  await queueChecksAfterChange(sessionId);
   return sortingView(studioId, sessionId);
 }
 

@@ -93,6 +93,7 @@ export interface MyHandoffRow {
   stackId: string;
   stackName: string;
   state: StackState;
+  version: number;
   sessionId: string;
   sessionTitle: string;
   shootDate: string;
@@ -101,6 +102,7 @@ export interface MyHandoffRow {
   handedOffBy: string;
   mergedAt: string | null;
   contactSheetAvailable: boolean;
+  bundle: { status: BundleAvailability; sizeBytes: number | null };
   mergedResult: MergedResultView | null;
 }
 

@@ -9,6 +9,7 @@ export const router = createBrowserRouter([
   { path: paths.resetRequest, lazy: () => import('./routes/reset-request'), errorElement: <RouteError /> },
   { path: paths.resetConfirm(), lazy: () => import('./routes/reset-confirm'), errorElement: <RouteError /> },
   { path: paths.invite(), lazy: () => import('./routes/invite'), errorElement: <RouteError /> },
+  { path: paths.share(), lazy: () => import('./routes/share'), errorElement: <RouteError /> },
   {
     element: <AppShell />,
     errorElement: <RouteError />,
@@ -19,8 +20,10 @@ export const router = createBrowserRouter([
       { path: paths.planPrint(), lazy: () => import('./routes/plan-print') },
       { path: paths.sessions, lazy: () => import('./routes/sessions') },
       { path: paths.session(), lazy: () => import('./routes/session') },
+      { path: paths.stack(), lazy: () => import('./routes/stack') },
       { path: paths.kit, lazy: () => import('./routes/kit') },
       { path: paths.studio, lazy: () => import('./routes/studio') },
+      { path: paths.handoffs, lazy: () => import('./routes/handoffs') },
       { path: '*', lazy: () => import('./routes/not-found') },
     ],
   },

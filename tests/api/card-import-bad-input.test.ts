@@ -18,6 +18,9 @@ let fx: StudioFixture;
 let photographer: Agent;
 let workers: { stop: () => Promise<void> };
 let tmp: string;
+let incoming: string;
+let incomingBefore: Set<string>;
+const incomingNow = () => (fs.existsSync(incoming) ? fs.readdirSync(incoming) : []);
 
 beforeAll(async () => {
   app = await buildApp();
@@ -25,6 +28,9 @@ beforeAll(async () => {
   photographer = await agentFor(app, fx.users.photographer);
   workers = await startTestWorkers();
   tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'lamella-bad-input-'));
+  const { getStore } = await import('../../server/lib/storage');
+  incoming = path.join(path.dirname(getStore().localPath('x')), '.incoming');
+  incomingBefore = new Set(incomingNow());
 });
 afterAll(async () => {
   await workers?.stop();
@@ -191,10 +197,6 @@ describe('bad files in a card import', () => {
     expect(ok.body.files[0].status).toBe('stored');
     const imports = await photographer.get(`${sessionsBase(fx.studioId)}/${sessionId}/imports`).expect(200);
     expect(imports.body.imports[0]).toMatchObject({ storedCount: 1, refusedCount: 0 });
-    // Nothing half-received stayed behind in the temporary folder.
-    const { getStore } = await import('../../server/lib/storage');
-    const incoming = path.join(path.dirname(getStore().localPath('x')), '.incoming');
-    expect(fs.existsSync(incoming) ? fs.readdirSync(incoming) : []).toEqual([]);
   });
 
   it('refuses uploads by guests and retouchers (403) and into another studio’s session (403/404)', async () => {
@@ -220,5 +222,9 @@ describe('bad files in a card import', () => {
     expect((await uploadFiles(photographer, fx.studioId, sessionId, theirImport, file)).status).toBe(404);
     const imports = await photographer.get(`${sessionsBase(fx.studioId)}/${sessionId}/imports`).expect(200);
     expect(imports.body.imports[0]).toMatchObject({ storedCount: 0, duplicateCount: 0, refusedCount: 0 });
+  });
+
+  it('leaves no half-received temporary file behind after any of the requests above', () => {
+    expect(incomingNow().filter((name) => !incomingBefore.has(name))).toEqual([]);
   });
 });

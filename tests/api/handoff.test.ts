@@ -145,7 +145,7 @@ describe('the retoucher member', () => {
     // The bundle was asked for at hand-off; until it is made the answer is 409 with a reason.
     const zip = await until('bundle', async () => {
       const res = await retoucher.get(`${base()}/${stackId}/handoff/bundle`).buffer(true).parse(binaryParser);
-      if (res.status === 409) expect(res.body.toString()).toMatch(/being prepared/);
+      if (res.status === 409) expect(res.body.toString()).toMatch(/being prepared, try again in a minute/);
       return res.status === 200 && (res.body as Buffer);
     });
     // Debian's unzip is the reference for the archive; the manifest keeps the stack order.

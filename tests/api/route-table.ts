@@ -96,6 +96,10 @@ export const ROUTE_TABLE: RouteRow[] = [
   row('get',    '/api/studios/:studioId/bundles/:bundleId/download',                     401, 'ok', 'ok', 'ok', 403),
   row('post',   '/api/studios/:studioId/sessions/:sessionId/bundles',                    401, 'ok', 'ok', 403, 403),
   row('get',    '/api/studios/:studioId/sessions/:sessionId/bundles/latest',             401, 'ok', 'ok', 403, 'ok'),
+  // stack checks (a retoucher passes the role check; the stack check answers 404/403 per stack) and the studio's limits
+  row('get',    '/api/studios/:studioId/stacks/:stackId/checks',                         401, 'ok', 'ok', 'ok', 'ok'),
+  row('get',    '/api/studios/:studioId/check-thresholds',                               401, 'ok', 'ok', 'ok', 'ok'),
+  row('put',    '/api/studios/:studioId/check-thresholds',                               401, 'ok', 'ok', 403, 403),
   // hand-off: panel, steps, share links, the retoucher's list, bundle download, merged result
   row('get',    '/api/studios/:studioId/handoffs/mine',                                  401, 'ok', 'ok', 'ok', 'ok'),
   row('get',    '/api/studios/:studioId/stacks/:stackId/handoff',                        401, 'ok', 'ok', 'ok', 'ok'),
@@ -105,6 +109,7 @@ export const ROUTE_TABLE: RouteRow[] = [
   row('post',   '/api/studios/:studioId/stacks/:stackId/handoff/share-links',            401, 'ok', 'ok', 403, 403),
   row('delete', '/api/studios/:studioId/stacks/:stackId/handoff/share-links/:linkId',    401, 'ok', 'ok', 403, 403),
   row('get',    '/api/studios/:studioId/stacks/:stackId/handoff/bundle',                 401, 'ok', 'ok', 'ok', 403),
+  row('post',   '/api/studios/:studioId/stacks/:stackId/handoff/bundle',                 401, 'ok', 'ok', 'ok', 403),
   row('post',   '/api/studios/:studioId/stacks/:stackId/handoff/merged',                 401, 'ok', 'ok', 'ok', 403),
   row('get',    '/api/studios/:studioId/stacks/:stackId/handoff/merged/file',            401, 'ok', 'ok', 'ok', 'ok'),
   row('get',    '/api/studios/:studioId/stacks/:stackId/handoff/merged/preview/:size',   401, 'ok', 'ok', 'ok', 'ok'),
@@ -112,5 +117,6 @@ export const ROUTE_TABLE: RouteRow[] = [
   row('get',    '/api/share/:token',                                                     'ok', 'ok', 'ok', 'ok', 'ok'),
   row('get',    '/api/share/:token/contact-sheet.jpg',                                   'ok', 'ok', 'ok', 'ok', 'ok'),
   row('get',    '/api/share/:token/bundle',                                              'ok', 'ok', 'ok', 'ok', 'ok'),
+  row('post',   '/api/share/:token/bundle',                                              'ok', 'ok', 'ok', 'ok', 'ok'),
   row('post',   '/api/share/:token/merged',                                              'ok', 'ok', 'ok', 'ok', 'ok'),
 ];

@@ -34,6 +34,9 @@ beforeAll(async () => {
   const folder = path.join(cardDir, 'DCIM', '100FERN');
   fs.mkdirSync(folder, { recursive: true });
   for (const f of card.files) fs.writeFileSync(path.join(folder, f.name), f.buffer);
+  // What else a card holds: a note saved under a picture's name, and a hidden system file.
+  fs.writeFileSync(path.join(folder, 'NOTE_0001.JPG'), 'left antenna bent, retake stack 2\n');
+  fs.writeFileSync(path.join(cardDir, '.card-index'), Buffer.alloc(64, 1));
 });
 afterAll(async () => {
   await workers?.stop();
@@ -70,7 +73,10 @@ describe('importing a card and sorting it by hand', () => {
     await page.getByText('Import finished').waitFor({ timeout: 60_000 });
     await expect.poll(() => page.getByTestId('import-phase').textContent()).toContain('100 %');
     expect(await page.getByRole('progressbar', { name: 'Whole import' }).getAttribute('aria-valuenow')).toBe('100');
-    await expect.poll(() => page.getByRole('status').filter({ hasText: 'stored' }).first().textContent()).toContain(`${card.files.length} stored`);
+    await expect.poll(() => page.getByRole('status').filter({ hasText: 'stored' }).first().textContent())
+      .toMatch(new RegExp(`^${card.files.length} stored · 0 already there · 1 refused · 0 failed · 1 hidden system files left out`));
+    const attention = page.getByRole('list', { name: 'Files that need attention' });
+    await expect.poll(() => attention.textContent()).toMatch(/NOTE_0001\.JPG.*refused: .*looks like text/);
     await screenshot(page, 'session-import');
 
     await expect.poll(() => frameCounts(page), { timeout: 30_000 }).toEqual(STACK_SIZES);

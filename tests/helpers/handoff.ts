@@ -20,10 +20,12 @@ export async function readyStack(agent: Agent, studioId: string, prefix = 'FRN',
 }
 
 /** supertest parser that keeps a binary body as one Buffer. */
-export function binaryParser(res: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) => void) {
+export function binaryParser(res: unknown, cb: (err: Error | null, body: Buffer) => void) {
+  // superagent hands the parser the raw response stream (its typings call it a response).
+  const stream = res as NodeJS.ReadableStream;
   const chunks: Buffer[] = [];
-  res.on('data', (c: Buffer) => chunks.push(c));
-  res.on('end', () => cb(null, Buffer.concat(chunks)));
+  stream.on('data', (c: Buffer) => chunks.push(c));
+  stream.on('end', () => cb(null, Buffer.concat(chunks)));
 }
 
 /** The newest caught message to `email` whose subject starts with `subjectStart` and whose text holds `about`. */

@@ -6,6 +6,8 @@ import { getStore, storageKeys } from '../../server/lib/storage';
 import { Frame, StoredFile } from '../../server/entities/session';
 import { makePreviews, type PreviewSourceKind } from '../lib/previews';
 import { computeFrameStats } from '../lib/frame-stats';
+import { queueChecksForFrame } from '../../server/services/check-results-service';
+import { logger } from '../../server/lib/logger';
 import type { Payload } from '../queues';
 
 export async function framePreviewJob(job: Job<Payload<'framePreview'>>): Promise<{ source: string }> {
@@ -31,6 +33,7 @@ export async function framePreviewJob(job: Job<Payload<'framePreview'>>): Promis
     { id: frameId },
     { previewStatus: 'done', previewError: null, previewSmallKey: smallKey, previewLargeKey: largeKey, stats, flags },
   );
+  await queueChecks(frameId);
   await job.updateProgress(100);
   return { source: result.source };
 }
@@ -38,4 +41,13 @@ export async function framePreviewJob(job: Job<Payload<'framePreview'>>): Promis
 /** After the last retry: leave a readable error on the frame. */
 export async function framePreviewFailed(data: Payload<'framePreview'>, err: Error) {
   await getDataSource().getRepository(Frame).update({ id: data.frameId }, { previewStatus: 'failed', previewError: `Preview could not be made: ${err.message}` });
+  await queueChecks(data.frameId);
+}
+
+/**
+ * The last frame of a stack to be measured starts the stack's checks. A failure here must not
+ * redo the preview: it is logged, and the stack page queues the checks when it finds them missing.
+ */
+async function queueChecks(frameId: string) {
+  await queueChecksForFrame(frameId).catch((err: unknown) => logger.warn({ frameId, err }, 'could not queue the stack checks'));
 }

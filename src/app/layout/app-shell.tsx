@@ -3,14 +3,15 @@ import { Navigate, NavLink, Outlet, useLocation, useNavigate } from 'react-route
 import { useMe } from '@/features/auth/api/get-me';
 import { useSignOut } from '@/features/auth/api/sign-out';
 import { StudioSwitcher } from '@/features/auth/components/studio-switcher';
-import { ROLE_LABELS } from '@shared/roles';
+import { ROLE_LABELS, type Role } from '@shared/roles';
 import { paths } from '../paths';
 
-const SECTIONS = [
+const SECTIONS: { to: string; label: string; roles?: Role[] }[] = [
   { to: paths.planner, label: 'Planner' },
   { to: paths.sessions, label: 'Sessions' },
   { to: paths.kit, label: 'Kit' },
   { to: paths.studio, label: 'Studio' },
+  { to: paths.handoffs, label: 'Handed to me', roles: ['retoucher'] },
 ];
 
 /** Signed-in frame: top bar with sections, studio switcher and sign-out; pages render below. */
@@ -31,7 +32,7 @@ export function AppShell() {
         <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-2">
           <span className="text-lg font-semibold tracking-wide text-moss">Lamella</span>
           <nav aria-label="Sections" className="flex flex-wrap gap-1">
-            {SECTIONS.map((s) => (
+            {SECTIONS.filter((s) => !s.roles || (active && s.roles.includes(active.role))).map((s) => (
               <NavLink
                 key={s.to}
                 to={s.to}

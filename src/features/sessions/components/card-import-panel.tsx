@@ -63,7 +63,7 @@ export function CardImportPanel({ studioId, sessionId }: { studioId: string; ses
               {count(totals.settled)} of {count(snapshot.items.length)} files · {bytes(totals.doneBytes)} of {bytes(totals.totalBytes)}
             </span>
           </div>
-          <div className="mt-2"><ProgressBar id="import-progress" label="Whole import" percent={totals.percent} /></div>
+          <div className="mt-2"><ProgressBar label="Whole import" percent={totals.percent} /></div>
           <p className="num mt-2 text-sm text-slate" role="status">
             {count(totals.stored)} stored · {count(totals.duplicate)} already there · {count(totals.refused)} refused · {count(totals.failed)} failed
             {snapshot.hiddenCount ? ` · ${count(snapshot.hiddenCount)} hidden system files left out` : ''}
@@ -120,7 +120,9 @@ function FileRow({ item }: { item: ImportItem }) {
     <li className="grid grid-cols-[minmax(0,1fr)_6rem_7rem_6rem] items-center gap-3 border-b border-rule/60 py-1">
       <span className="truncate" title={item.path}>{item.path}</span>
       <span className="num text-right text-slate">{bytes(item.sizeBytes)}</span>
-      <ProgressBar thin label={item.path} percent={pct} />
+      <div role="progressbar" aria-label={item.path} aria-valuemin={0} aria-valuemax={100} aria-valuenow={pct} className="h-1.5 w-full overflow-hidden rounded-full bg-rule/60">
+        <div className="h-full rounded-full bg-moss" style={{ width: `${pct}%` }} />
+      </div>
       <span className={`text-xs ${STATUS_TONE[item.status] ?? 'text-slate'}`} title={item.message ?? undefined}>{STATUS_TEXT[item.status]}</span>
     </li>
   );
