@@ -7,6 +7,7 @@ import { User } from '../../server/entities/user';
 import type { Role } from '../../shared/roles';
 import { DEMO_STUDIO_NAME, DEMO_USERS } from './demo-users';
 import { seedDemoKitAndPlans } from './demo-kit';
+import { seedDemoSession } from './demo-session';
 
 export async function demoExists(): Promise<boolean> {
   return (await getDataSource().getRepository(Studio).countBy({ name: DEMO_STUDIO_NAME })) > 0;
@@ -22,6 +23,7 @@ export async function resetDemo(): Promise<void> {
 export type DemoPart = (ctx: { studioId: string; users: Record<Role, string> }) => Promise<void>;
 export const demoParts: DemoPart[] = [];
 demoParts.push(seedDemoKitAndPlans);
+demoParts.push(async (ctx) => void (await seedDemoSession(ctx)));
 
 export async function seedDemo(opts: { reset?: boolean } = {}): Promise<'created' | 'present'> {
   if (opts.reset) await resetDemo();

@@ -65,3 +65,15 @@ export function cardStorageEngine(maxBytes: () => number): multer.StorageEngine 
     },
   };
 }
+
+/** The same steps for a file already in memory (the demo seed, scripts): sniff, then store. */
+export async function receiveBuffer(data: Buffer, maxBytes: number): Promise<ReceivedCardFile> {
+  const sniff = await sniffImageKind(new Uint8Array(data.buffer, data.byteOffset, Math.min(data.length, SNIFF_BYTES)));
+  if (!sniff.ok) return { outcome: 'refused', reason: sniff.reason };
+  const { result, commit, discard } = await getStore().putStream(Readable.from([data]), { maxBytes });
+  if (result.overLimit) {
+    await discard();
+    return { outcome: 'refused', reason: 'larger than the upload limit' };
+  }
+  return { outcome: 'received', sniff, put: result, commit, discard };
+}

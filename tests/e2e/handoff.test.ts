@@ -92,7 +92,7 @@ describe('handing stacks off', () => {
     await linkField.waitFor();
     const shareUrl = await linkField.inputValue();
     expect(shareUrl).toMatch(/\/share\/[A-Za-z0-9_-]{43}$/);
-    await panel.getByRole('cell', { name: /bench-retouch@outside\.example/ }).waitFor();
+    await panel.getByRole('list', { name: 'Share links of this stack' }).getByRole('listitem').filter({ hasText: /bench-retouch@outside\.example · Active/ }).waitFor();
     await expectNoSeriousA11yViolations(page);
     await screenshot(page, 'handoff');
     await signOutThroughShell(page);
@@ -102,7 +102,7 @@ describe('handing stacks off', () => {
     await page.getByRole('navigation', { name: 'Sections' }).getByRole('link', { name: 'Handed to me' }).click();
     const card = page.getByRole('article', { name: 'Fern frond, dew at dawn' });
     await card.getByRole('img', { name: /Contact sheet of Fern frond, dew at dawn/ }).waitFor({ timeout: 60_000 });
-    const download = card.getByRole('link', { name: /Download the bundle of Fern frond, dew at dawn/ });
+    const download = card.getByRole('link', { name: /Download bundle of Fern frond, dew at dawn/ });
     await download.waitFor({ timeout: 60_000 });
     await expectNoSeriousA11yViolations(page);
     await screenshot(page, 'retoucher-inbox');
@@ -119,7 +119,7 @@ describe('handing stacks off', () => {
     await page.goto(shareUrl);
     await page.getByRole('heading', { name: 'Watch movement, balance wheel' }).waitFor();
     await page.getByText(/This link works until/).waitFor();
-    const shareDownload = page.getByRole('link', { name: /Download the bundle of Watch movement, balance wheel/ });
+    const shareDownload = page.getByRole('link', { name: /Download bundle of Watch movement, balance wheel/ });
     await shareDownload.waitFor({ timeout: 60_000 });
     const outsideZip = checkZip(await downloadedZip(page, shareDownload));
     expect(outsideZip.testOutput).toMatch(/No errors detected/);

@@ -8,10 +8,11 @@ import { useRevokeInvitation } from '@/features/studio/api/revoke-invitation';
 import { MembersTable } from '@/features/studio/components/members-table';
 import { InviteForm } from '@/features/studio/components/invite-form';
 import { CaughtMail } from '@/features/studio/components/caught-mail';
+import { CheckThresholdsSection } from '@/features/checks/components/check-thresholds-section';
 import { ROLE_LABELS } from '@shared/roles';
 
 export function Component() {
-  const { studioId, studioName, isOwner } = useActiveStudio();
+  const { studioId, studioName, isOwner, canEdit } = useActiveStudio();
   const { data: me } = useMe();
   const members = useMembers(studioId);
   const invitations = useInvitations(studioId, isOwner);
@@ -26,6 +27,7 @@ export function Component() {
           <MembersTable studioId={studioId} members={members.data ?? []} isOwner={isOwner} myUserId={me?.id ?? ''} />
         </QueryState>
       </section>
+      <CheckThresholdsSection studioId={studioId} canEdit={canEdit} />
       {isOwner ? (
         <>
           <section aria-labelledby="invite-h" className="mb-10">

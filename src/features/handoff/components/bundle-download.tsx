@@ -19,8 +19,8 @@ export function BundleDownload({ status, sizeBytes, href, stackName, ask, onAske
   const asking = useMutation({ mutationFn: ask, onSuccess: onAsked });
   if (status === 'ready') {
     return (
-      <a href={href} download className="inline-flex items-center gap-2 rounded bg-moss px-3 py-1.5 text-sm font-medium text-white hover:bg-[#275d4f]" aria-label={`Download the bundle of ${stackName} (${bytes(sizeBytes)})`}>
-        Download bundle <span className="num font-normal">({bytes(sizeBytes)})</span>
+      <a href={href} download className="inline-flex items-center gap-1 rounded bg-moss px-3 py-1.5 text-sm font-medium text-white hover:bg-[#275d4f]">
+        Download bundle<span className="sr-only"> of {stackName}</span> <span className="num font-normal">({bytes(sizeBytes)})</span>
       </a>
     );
   }

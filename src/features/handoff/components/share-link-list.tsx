@@ -33,29 +33,24 @@ export function ShareLinkList({ studioId, stackId, links, canManage, onCreated }
     <div className="space-y-2">
       <h3 className="text-sm font-semibold">Share links</h3>
       {links.length === 0 ? <p className="text-sm text-slate">No share links.</p> : (
-        <div className="overflow-x-auto">
-          <table className="w-full text-left text-sm">
-            <caption className="sr-only">Share links of this stack</caption>
-            <thead className="text-slate">
-              <tr><th className="py-1 pr-2 font-medium">For</th><th className="pr-2 font-medium">Expires</th><th className="pr-2 text-right font-medium">Downloads</th><th className="pr-2 font-medium">State</th><th><span className="sr-only">Actions</span></th></tr>
-            </thead>
-            <tbody>
-              {links.map((l) => (
-                <tr key={l.id} className="border-t border-rule">
-                  <td className="py-1 pr-2">{l.email}<div className="text-xs text-slate">made {when(l.createdAt)}</div></td>
-                  <td className="num pr-2">{when(l.expiresAt)}{l.status === 'active' ? <div className="text-xs text-slate">{timeLeft(l.expiresAt)}</div> : null}</td>
-                  <td className="num pr-2 text-right">{count(l.downloadCount)}{l.lastDownloadAt ? <div className="text-xs text-slate">last {when(l.lastDownloadAt)}</div> : null}</td>
-                  <td className={`pr-2 ${l.status === 'active' ? 'text-moss' : 'text-slate'}`}>{STATUS_LABEL[l.status]}</td>
-                  <td className="text-right">
-                    {canManage && l.status === 'active' ? (
-                      <Button variant="quiet" disabled={revoke.isPending} onClick={() => revoke.mutate(l.id)} aria-label={`Revoke the share link for ${l.email} made ${when(l.createdAt)}`}>Revoke</Button>
-                    ) : null}
-                  </td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+        <ul className="divide-y divide-rule text-sm" aria-label="Share links of this stack">
+          {links.map((l) => (
+            <li key={l.id} className="flex flex-wrap items-start justify-between gap-x-3 gap-y-1 py-1.5">
+              <div className="min-w-0">
+                <p className="break-all">
+                  {l.email} <span className={l.status === 'active' ? 'font-medium text-moss' : 'text-slate'}>· {STATUS_LABEL[l.status]}</span>
+                </p>
+                <p className="num text-xs text-slate">
+                  made {when(l.createdAt)} · {l.status === 'revoked' ? `revoked ${when(l.revokedAt)}` : `expires ${when(l.expiresAt)}${l.status === 'active' ? ` (${timeLeft(l.expiresAt)})` : ''}`}
+                  {' · '}{count(l.downloadCount)} download{l.downloadCount === 1 ? '' : 's'}{l.lastDownloadAt ? `, last ${when(l.lastDownloadAt)}` : ''}
+                </p>
+              </div>
+              {canManage && l.status === 'active' ? (
+                <Button variant="quiet" disabled={revoke.isPending} onClick={() => revoke.mutate(l.id)} aria-label={`Revoke the share link for ${l.email} made ${when(l.createdAt)}`}>Revoke</Button>
+              ) : null}
+            </li>
+          ))}
+        </ul>
       )}
       {revoke.error ? <ErrorNote error={revoke.error} /> : null}
       {canManage ? (

@@ -16,7 +16,7 @@ export function timeLeft(iso: string, now = Date.now()): string {
   const ms = Date.parse(iso) - now;
   if (ms <= 0) return 'expired';
   const hours = ms / 3_600_000;
-  return hours < 48 ? `in ${Math.max(1, Math.floor(hours))} h` : `in ${Math.floor(hours / 24)} days`;
+  return hours < 48 ? `in ${Math.max(1, Math.round(hours))} h` : `in ${Math.round(hours / 24)} days`;
 }
 
 const str = (v: unknown) => (typeof v === 'string' ? v : '');
