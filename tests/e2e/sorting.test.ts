@@ -59,6 +59,8 @@ describe('importing a card and sorting it by hand', () => {
     const page = await h.context.newPage();
     await signInThroughForm(page, h.baseUrl, photographer.email, photographer.password);
     await page.getByRole('navigation', { name: 'Sections' }).getByRole('link', { name: 'Sessions' }).click();
+    await page.getByRole('heading', { name: 'Sessions' }).waitFor();
+    await expectNoSeriousA11yViolations(page);
     await page.getByRole('button', { name: 'New session' }).click();
     await page.getByLabel('Title').fill('Dew on the fern, browser test');
     await page.getByLabel('Date').fill('2026-05-14');
@@ -74,7 +76,7 @@ describe('importing a card and sorting it by hand', () => {
     await expect.poll(() => page.getByTestId('import-phase').textContent()).toContain('100 %');
     expect(await page.getByRole('progressbar', { name: 'Whole import' }).getAttribute('aria-valuenow')).toBe('100');
     await expect.poll(() => page.getByRole('status').filter({ hasText: 'stored' }).first().textContent())
-      .toMatch(new RegExp(`^${card.files.length} stored · 0 already there · 1 refused · 0 failed · 1 hidden system files left out`));
+      .toMatch(new RegExp(`^${card.files.length} stored · 0 already there · 1 refused · 0 failed · 1 hidden system file left out`));
     const attention = page.getByRole('list', { name: 'Files that need attention' });
     await expect.poll(() => attention.textContent()).toMatch(/NOTE_0001\.JPG.*refused: .*looks like text/);
     await screenshot(page, 'session-import');

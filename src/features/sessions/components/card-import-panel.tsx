@@ -66,7 +66,7 @@ export function CardImportPanel({ studioId, sessionId }: { studioId: string; ses
           <div className="mt-2"><ProgressBar label="Whole import" percent={totals.percent} /></div>
           <p className="num mt-2 text-sm text-slate" role="status">
             {count(totals.stored)} stored · {count(totals.duplicate)} already there · {count(totals.refused)} refused · {count(totals.failed)} failed
-            {snapshot.hiddenCount ? ` · ${count(snapshot.hiddenCount)} hidden system files left out` : ''}
+            {snapshot.hiddenCount ? ` · ${count(snapshot.hiddenCount)} hidden system ${snapshot.hiddenCount === 1 ? 'file' : 'files'} left out` : ''}
           </p>
           {snapshot.error ? <p role="alert" className="mt-2 text-sm text-clay">{snapshot.error}</p> : null}
           <div className="mt-3 flex flex-wrap gap-2">

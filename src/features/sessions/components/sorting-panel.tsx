@@ -9,6 +9,9 @@ import { SelectionBar } from './selection-bar';
 import { StackRow, type PlanOption } from './stack-row';
 import { FrameTile } from './frame-tile';
 
+// Undo steps the server names after what caused them; the card import's step undoes only its grouping.
+const UNDO_WORDING: Record<string, string> = { 'card import': 'grouping of the card import' };
+
 interface Props {
   studioId: string;
   sessionId: string;
@@ -40,7 +43,7 @@ export function SortingPanel({ studioId, sessionId, canEdit, plans }: Props) {
         <h2 id="sorting-h" className="text-lg font-semibold">Stacks and loose frames</h2>
         {canEdit && view ? (
           <Button variant="secondary" disabled={busy || !view.undoLabel} onClick={() => actions.undo.mutate(undefined, afterEdit)}>
-            {view.undoLabel ? `Undo: ${view.undoLabel}` : 'Nothing to undo'}
+            {view.undoLabel ? `Undo: ${UNDO_WORDING[view.undoLabel] ?? view.undoLabel}` : 'Nothing to undo'}
           </Button>
         ) : null}
       </div>
