@@ -7,6 +7,11 @@ import { receiveBuffer } from '../../server/lib/card-upload';
 import { createSession } from '../../server/services/session-service';
 import { completeImport, createImport, recordUploadedFiles } from '../../server/services/card-import-service';
 import { Stack } from '../../server/entities/session';
+import { setStackState } from '../../server/services/stack-edit-service';
+import { handOffStack } from '../../server/services/handoff-service';
+import { attachMergedResult } from '../../server/services/merged-result-service';
+import { DEMO_USERS } from './demo-users';
+import sharp from 'sharp';
 import { renderCard } from './stack-renderer';
 import type { Role } from '../../shared/roles';
 
@@ -52,5 +57,20 @@ export async function seedDemoSession({ studioId, users }: { studioId: string; u
     });
   }
   if (fernPlan) await ds.query(`UPDATE plans SET session_id = $1 WHERE id = $2`, [session.id, fernPlan.id]);
+
+  // The clean stacks were checked and handed to the studio's retoucher; the first came back merged.
+  const who = (role: Role) => DEMO_USERS.find((u) => u.role === role)!;
+  const photographer = { userId: users.photographer, label: who('photographer').name, email: who('photographer').email };
+  for (const stack of [stacks[0], stacks[3]].filter(Boolean)) {
+    await setStackState(studioId, session.id, stack.id, 'ready', photographer);
+    await handOffStack(studioId, stack.id, photographer, { to: 'member', retoucherUserId: users.retoucher });
+  }
+  if (stacks[0]) {
+    // A stand-in for the retoucher's merged picture (demo data): the stack's first frame, recompressed.
+    const first = card.files.find((f) => f.stackIndex === 0 && f.kind === 'jpeg')!;
+    const merged = await sharp(first.buffer).jpeg({ quality: 92 }).toBuffer();
+    const received = { originalname: 'dew-on-frond-left-drop_merged.jpg', ...(await receiveBuffer(merged, env().UPLOAD_MAX_BYTES)) };
+    await attachMergedResult(studioId, stacks[0].id, { userId: users.retoucher, label: who('retoucher').name }, received, { shareLinkId: null });
+  }
   return { sessionId: session.id, stackIds: stacks.map((s) => s.id) };
 }

@@ -41,6 +41,8 @@ beforeAll(async () => {
 afterAll(async () => {
   await workers?.stop();
   await h?.close();
+  await (await import('../../server/lib/queues')).closeQueues();
+  await (await import('../../server/lib/redis')).closeRedis();
   if (cardDir) fs.rmSync(cardDir, { recursive: true, force: true });
 });
 
