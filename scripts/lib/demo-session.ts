@@ -49,12 +49,10 @@ export async function seedDemoSession({ studioId, users }: { studioId: string; u
   const stacks = await ds.getRepository(Stack).find({ where: { sessionId: session.id }, order: { position: 'ASC' } });
   const plans: { id: string; name: string }[] = await ds.query(`SELECT id, name FROM plans WHERE studio_id = $1 ORDER BY created_at`, [studioId]);
   const fernPlan = plans.find((p) => p.name.startsWith('Dew'));
-  const beetlePlan = plans.find((p) => p.name.startsWith('Museum beetle'));
+  // Stacks stay unlinked: the demo plans are for other magnifications, and a link would (rightly)
+  // raise a plan-mismatch check on every stack. The fern plan is linked to the session instead.
   for (const [i, stack] of stacks.entries()) {
-    await ds.getRepository(Stack).update({ id: stack.id }, {
-      name: STACK_NAMES[i] ?? stack.name,
-      planId: (i % 2 === 0 ? fernPlan?.id : beetlePlan?.id) ?? null,
-    });
+    await ds.getRepository(Stack).update({ id: stack.id }, { name: STACK_NAMES[i] ?? stack.name });
   }
   if (fernPlan) await ds.query(`UPDATE plans SET session_id = $1 WHERE id = $2`, [session.id, fernPlan.id]);
 

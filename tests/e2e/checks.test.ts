@@ -74,6 +74,7 @@ async function frameMarks(page: Page, stackName: string): Promise<string[]> {
 
 describe('stack checks on the stack page', () => {
   it('show the injected faults in the summary, the list and on the frames', async () => {
+    await h.context.clearCookies(); // each test signs in afresh, as its own member
     const page = await h.context.newPage();
     await signInThroughForm(page, h.baseUrl, fx.users.photographer.email, fx.users.photographer.password);
     await page.goto(`${h.baseUrl}/sessions/${sessionId}/stacks/${stacks.faulty.id}`);
@@ -96,6 +97,7 @@ describe('stack checks on the stack page', () => {
   });
 
   it('show nothing on the clean stack', async () => {
+    await h.context.clearCookies(); // each test signs in afresh, as its own member
     const page = await h.context.newPage();
     await signInThroughForm(page, h.baseUrl, fx.users.guest.email, fx.users.guest.password);
     await page.goto(`${h.baseUrl}/sessions/${sessionId}/stacks/${stacks.clean.id}`);
@@ -112,6 +114,7 @@ describe('stack checks on the stack page', () => {
 
 describe('check limits on the Studio page', () => {
   it('refuse a bad limit beside its field, and save a good one', async () => {
+    await h.context.clearCookies(); // each test signs in afresh, as its own member
     const page = await h.context.newPage();
     await signInThroughForm(page, h.baseUrl, fx.users.photographer.email, fx.users.photographer.password);
     await page.goto(`${h.baseUrl}/studio`);

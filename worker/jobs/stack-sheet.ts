@@ -12,7 +12,7 @@ import type { Payload } from '../queues';
 
 /** How long a sheet waits for pending previews before drawing grey cells for them. */
 export const PREVIEW_WAIT_MS = 2 * 60_000;
-const RECHECK_MS = 2000;
+export const RECHECK_MS = 2000;
 
 export interface SheetFiles {
   jpegPath: string;
@@ -53,6 +53,19 @@ export async function ensureContactSheet(m: StackMaterial): Promise<SheetFiles> 
   return files;
 }
 
+/**
+ * While any frame's preview is still being made (a hand-off right after the import), put the job
+ * back for a moment instead of drawing grey cells; after PREVIEW_WAIT_MS draw what there is.
+ */
+export async function waitForPreviews(job: Job, token: string | undefined, materials: StackMaterial[]) {
+  const pending = materials.some((m) => includedFrames(m).some((f) => f.frame.previewStatus === 'pending'));
+  if (pending && token && Date.now() - job.timestamp < PREVIEW_WAIT_MS) {
+    await job.updateProgress(5);
+    await job.moveToDelayed(Date.now() + RECHECK_MS, token);
+    throw new DelayedError();
+  }
+}
+
 export async function stackSheetJob(job: Job<Payload<'stackSheet'>>, token?: string): Promise<{ outcome: string }> {
   const { stackId, version } = job.data;
   const repo = getDataSource().getRepository(ContactSheet);
@@ -64,12 +77,7 @@ export async function stackSheetJob(job: Job<Payload<'stackSheet'>>, token?: str
     await repo.delete({ stackId, stackVersion: version, status: 'queued' });
     return { outcome: `superseded by version ${m.stack.version}` };
   }
-  const pending = includedFrames(m).some((f) => f.frame.previewStatus === 'pending');
-  if (pending && token && Date.now() - job.timestamp < PREVIEW_WAIT_MS) {
-    await job.updateProgress(5);
-    await job.moveToDelayed(Date.now() + RECHECK_MS, token);
-    throw new DelayedError();
-  }
+  await waitForPreviews(job, token, [m]);
   await job.updateProgress(10);
   await ensureContactSheet(m);
   await job.updateProgress(100);

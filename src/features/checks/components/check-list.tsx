@@ -22,7 +22,7 @@ export function CheckList({ checks }: { checks: NumberedCheck[] }) {
           <li key={`${check.code}-${i}`} className="rounded border border-rule bg-paper/60 p-2 text-sm" data-testid="check-item">
             <div className="mb-1 flex flex-wrap items-center gap-2">
               <CheckGlyph code={check.code} sizePx={16} decorative />
-              <span className="font-semibold" style={{ color: glyph.colourHex }}>{glyph.label}</span>
+              <span className="font-semibold">{glyph.label}</span>
               <span className={`rounded border px-1 text-xs font-medium ${severity.style}`}>{severity.word}</span>
               <span className="text-slate">{headline.charAt(0).toUpperCase() + headline.slice(1)}</span>
             </div>
