@@ -96,6 +96,18 @@ export async function storedCheckCodesByFrame(stackId: string, manager: EntityMa
   return codesByFrameId(computeCheckResults(state).checks);
 }
 
+/**
+ * frameId → check codes for every stack of a session, from the stored runs that are current (for
+ * the sorting page: stacks not checked yet for their present arrangement show no marks).
+ */
+export async function storedCheckCodesForSession(sessionId: string, manager: EntityManager = getDataSource().manager): Promise<Map<string, CheckCode[]>> {
+  const states = await loadCheckStates(manager, { sessionId });
+  if (states.length === 0) return new Map();
+  const rows = await manager.getRepository(StackCheckRun).find({ where: states.map((s) => ({ stackId: s.stack.id })) });
+  const current = rows.filter((r) => states.some((s) => s.stack.id === r.stackId && s.inputKey === r.inputKey));
+  return codesByFrameId(current.flatMap((r) => r.results.checks));
+}
+
 export async function stackChecksView({ stack }: StackInStudio): Promise<StackChecksView> {
   const manager = getDataSource().manager;
   const [state] = await loadCheckStates(manager, { stackId: stack.id });

@@ -4,11 +4,14 @@ import { Frame, SortingSnapshot, Stack, StoredFile } from '../entities/session';
 import { DEFAULT_GROUPING_OPTIONS } from '../../shared/grouping';
 import { sessionInStudio } from './session-service';
 import { NotFound } from '../lib/errors';
+import { captureOffsetMinutes } from './capture-offset';
 
 export interface FrameView {
   id: string;
   fileName: string;
   captureTimeMs: number | null;
+  /** The camera's UTC offset at capture, when it recorded one. */
+  captureOffsetMinutes: number | null;
   fNumber: number | null;
   focalLengthMm: number | null;
   exposureTimeS: number | null;
@@ -28,6 +31,7 @@ function frameView(f: Frame, files: StoredFile[]): FrameView {
     id: f.id,
     fileName: f.fileName,
     captureTimeMs: f.captureTimeMs,
+    captureOffsetMinutes: captureOffsetMinutes(files, f.primaryFileId),
     fNumber: f.fNumber,
     focalLengthMm: f.focalLengthMm,
     exposureTimeS: f.exposureTimeS,

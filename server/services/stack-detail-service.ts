@@ -11,6 +11,7 @@ import type { StackInStudio } from './stack-access';
 import { checkCodesByFrame } from './frame-check-codes';
 import { contactSheetView } from './contact-sheet-service';
 import { latestStackBundle } from './bundle-service';
+import { captureOffsetMinutes } from './capture-offset';
 
 export async function stackDetail({ stack, session }: StackInStudio): Promise<StackDetailView> {
   const ds = getDataSource();
@@ -24,23 +25,27 @@ export async function stackDetail({ stack, session }: StackInStudio): Promise<St
     latestStackBundle(stack.id),
   ]);
   let bundleNumber = 0;
-  const frameViews = frames.map((f, index) => ({
-    id: f.id,
-    number: index + 1,
-    bundleNumber: f.excluded ? null : ++bundleNumber,
-    fileName: f.fileName,
-    captureTimeMs: f.captureTimeMs,
-    exposureTimeS: f.exposureTimeS,
-    fNumber: f.fNumber,
-    iso: f.iso,
-    focalLengthMm: f.focalLengthMm,
-    excluded: f.excluded,
-    flags: f.flags,
-    checkCodes: codes.get(f.id) ?? [],
-    previewStatus: f.previewStatus,
-    previewError: f.previewError,
-    files: files.filter((x) => x.frameId === f.id).map((x) => ({ name: x.displayName, kind: x.kind, isRaw: x.isRaw, sizeBytes: x.sizeBytes })),
-  }));
+  const frameViews = frames.map((f, index) => {
+    const own = files.filter((x) => x.frameId === f.id);
+    return {
+      id: f.id,
+      number: index + 1,
+      bundleNumber: f.excluded ? null : ++bundleNumber,
+      fileName: f.fileName,
+      captureTimeMs: f.captureTimeMs,
+      captureOffsetMinutes: captureOffsetMinutes(own, f.primaryFileId),
+      exposureTimeS: f.exposureTimeS,
+      fNumber: f.fNumber,
+      iso: f.iso,
+      focalLengthMm: f.focalLengthMm,
+      excluded: f.excluded,
+      flags: f.flags,
+      checkCodes: codes.get(f.id) ?? [],
+      previewStatus: f.previewStatus,
+      previewError: f.previewError,
+      files: own.map((x) => ({ name: x.displayName, kind: x.kind, isRaw: x.isRaw, sizeBytes: x.sizeBytes })),
+    };
+  });
   const included = frameViews.filter((f) => !f.excluded);
   return {
     id: stack.id,

@@ -54,6 +54,8 @@ export interface StackFrameView {
   bundleNumber: number | null;
   fileName: string;
   captureTimeMs: number | null;
+  /** The camera's UTC offset at capture (OffsetTimeOriginal), when it recorded one. */
+  captureOffsetMinutes: number | null;
   exposureTimeS: number | null;
   fNumber: number | null;
   iso: number | null;

@@ -21,6 +21,8 @@ export interface FrameView {
   id: string;
   fileName: string;
   captureTimeMs: number | null;
+  /** The camera's UTC offset at capture (OffsetTimeOriginal), when it recorded one. */
+  captureOffsetMinutes: number | null;
   fNumber: number | null;
   focalLengthMm: number | null;
   exposureTimeS: number | null;
@@ -81,6 +83,8 @@ export interface StoredFileMetadata {
   widthPx?: number | null;
   heightPx?: number | null;
   captureTimeSource?: string;
+  /** The camera's UTC offset at capture, in minutes (OffsetTimeOriginal). */
+  offsetMinutes?: number | null;
 }
 
 export interface SessionFileView {

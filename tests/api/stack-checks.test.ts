@@ -199,9 +199,15 @@ describe('who sees the checks', () => {
 
 describe('marks on the stack page and in the bundle', () => {
   it('give each flagged frame its check codes', async () => {
-    const d = (await as.photographer.get(stackUrl(faultyId)).expect(200)).body as { frames: { number: number; checkCodes: string[] }[] };
+    const d = (await as.photographer.get(stackUrl(faultyId)).expect(200)).body as { frames: { id: string; number: number; checkCodes: string[] }[] };
     const marked = d.frames.filter((f) => f.checkCodes.length).map((f) => `${f.number}:${f.checkCodes.join('+')}`);
     expect(marked).toEqual(['4:exposure-jump', '8:duplicate-frame', '9:duplicate-frame', '12:focus-gap', '13:focus-gap']);
+    // the same marks for the sorting page, for the whole session (the clean stack has none)
+    const { storedCheckCodesForSession } = await import('../../server/services/check-results-service');
+    const bySession = await storedCheckCodesForSession(sessionId);
+    const ids = d.frames;
+    expect(ids.filter((f) => bySession.has(f.id)).map((f) => `${f.number}:${bySession.get(f.id)!.join('+')}`)).toEqual(marked);
+    expect(bySession.size).toBe(marked.length);
   });
 
   it('write the check codes as flags into the bundle manifest', async () => {

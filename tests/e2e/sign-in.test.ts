@@ -37,7 +37,8 @@ describe('signing in as each demo role', () => {
       const page = await h.context.newPage();
       await signInThroughForm(page, h.baseUrl, user.email, user.password);
       const nav = page.getByRole('navigation', { name: 'Sections' });
-      for (const section of ['Planner', 'Sessions', 'Kit', 'Studio']) await expect.poll(() => nav.getByRole('link', { name: section }).count()).toBe(1);
+      const sections = user.role === 'retoucher' ? ['Planner', 'Kit', 'Studio', 'Handed to me'] : ['Planner', 'Sessions', 'Kit', 'Studio'];
+      for (const section of sections) await expect.poll(() => nav.getByRole('link', { name: section }).count()).toBe(1);
       await page.getByRole('link', { name: 'Studio' }).click();
       await page.getByRole('heading', { name: 'Members' }).waitFor();
       const roleLabel = user.role[0].toUpperCase() + user.role.slice(1);

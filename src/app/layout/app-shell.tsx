@@ -8,7 +8,7 @@ import { paths } from '../paths';
 
 const SECTIONS: { to: string; label: string; roles?: Role[] }[] = [
   { to: paths.planner, label: 'Planner' },
-  { to: paths.sessions, label: 'Sessions' },
+  { to: paths.sessions, label: 'Sessions', roles: ['owner', 'photographer', 'guest'] },
   { to: paths.kit, label: 'Kit' },
   { to: paths.studio, label: 'Studio' },
   { to: paths.handoffs, label: 'Handed to me', roles: ['retoucher'] },

@@ -3,7 +3,7 @@ import { useNavigate, useSearchParams } from 'react-router';
 import { apertureSweep, planStack } from '@shared/optics';
 import type { Kit } from '@shared/schemas/kit';
 import type { PlanView } from '@shared/schemas/plan';
-import { EmptyState, PageHeader, QueryState } from '@/components/query-state';
+import { EmptyState, ErrorNote, PageHeader, QueryState } from '@/components/query-state';
 import { useActiveStudio } from '@/features/auth/hooks/use-active-studio';
 import { useKit } from '@/features/kit/api/get-kit';
 import { usePlan } from '@/features/plans/api/get-plan';
@@ -35,6 +35,12 @@ export function Component() {
   return (
     <>
       <PageHeader title={existing.data ? `Planner: ${existing.data.name}` : 'Planner'} />
+      {kit.error || existing.error ? (
+        <div className="mb-4">
+          <ErrorNote error={kit.error ?? existing.error} />
+          <p className="mt-1 text-sm text-slate">{kit.error ? 'The kit could not be read; the planner still works with typed values.' : 'The plan to edit could not be read; this is a new plan.'}</p>
+        </div>
+      ) : null}
       {ready ? (
         <Workspace key={existing.data?.id ?? 'new'} kit={kit.data ?? EMPTY_KIT} existing={existing.data} />
       ) : (

@@ -9,8 +9,14 @@ import { CardImportPanel } from '@/features/sessions/components/card-import-pane
 import { SortingPanel } from '@/features/sessions/components/sorting-panel';
 import { FrameTable } from '@/features/sessions/components/frame-table';
 import { paths } from '../paths';
+import { RetoucherElsewhere } from '../layout/retoucher-elsewhere';
 
 export function Component() {
+  const { role } = useActiveStudio();
+  return role === 'retoucher' ? <RetoucherElsewhere title="Session" /> : <Session />;
+}
+
+function Session() {
   const { sessionId = '' } = useParams();
   const { studioId, canEdit } = useActiveStudio();
   const session = useSession(studioId, sessionId);

@@ -8,8 +8,14 @@ import { useCreateSession } from '@/features/sessions/api/create-session';
 import { SessionsTable } from '@/features/sessions/components/sessions-table';
 import { SessionForm } from '@/features/sessions/components/session-form';
 import { paths } from '../paths';
+import { RetoucherElsewhere } from '../layout/retoucher-elsewhere';
 
 export function Component() {
+  const { role } = useActiveStudio();
+  return role === 'retoucher' ? <RetoucherElsewhere title="Sessions" /> : <Sessions />;
+}
+
+function Sessions() {
   const { studioId, canEdit } = useActiveStudio();
   const sessions = useSessions(studioId);
   const create = useCreateSession(studioId);

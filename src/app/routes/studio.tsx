@@ -1,4 +1,4 @@
-import { PageHeader, QueryState } from '@/components/query-state';
+import { ErrorNote, PageHeader, QueryState } from '@/components/query-state';
 import { Button } from '@/components/button';
 import { useActiveStudio } from '@/features/auth/hooks/use-active-studio';
 import { useMe } from '@/features/auth/api/get-me';
@@ -33,13 +33,18 @@ export function Component() {
           <section aria-labelledby="invite-h" className="mb-10">
             <h2 id="invite-h" className="mb-3 text-lg font-semibold">Invite someone</h2>
             <InviteForm studioId={studioId} />
+            <h3 className="mt-6 mb-1 text-sm font-semibold">Open invitations</h3>
+            <QueryState isPending={invitations.isPending} error={invitations.error} label="invitations">
+              {invitations.data?.length ? null : <p className="text-sm text-slate">No invitation is waiting for an answer.</p>}
+            </QueryState>
+            <ErrorNote error={revoke.error} />
             {invitations.data?.length ? (
-              <ul className="mt-4 flex flex-col gap-1 text-sm">
+              <ul className="mt-1 flex flex-col gap-1 text-sm" aria-label="Open invitations">
                 {invitations.data.map((i) => (
                   <li key={i.id} className="flex items-center gap-3">
                     <span>{i.email}</span>
                     <span className="text-slate">{ROLE_LABELS[i.role]} · expires {new Date(i.expiresAt).toLocaleDateString()}</span>
-                    <Button variant="quiet" onClick={() => revoke.mutate(i.id)}>Withdraw</Button>
+                    <Button variant="quiet" disabled={revoke.isPending} onClick={() => revoke.mutate(i.id)} aria-label={`Withdraw the invitation to ${i.email}`}>Withdraw</Button>
                   </li>
                 ))}
               </ul>

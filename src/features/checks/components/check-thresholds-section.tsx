@@ -22,21 +22,22 @@ const FIELDS: { key: Key; label: string; unit: string; step: string; hint: strin
 /** The studio's check limits: everyone reads them; owners and photographers change them. */
 export function CheckThresholdsSection({ studioId, canEdit }: { studioId: string; canEdit: boolean }) {
   const thresholds = useCheckThresholds(studioId);
+  // kept here: the form below starts afresh from each saved set, the outcome of saving stays
+  const save = useUpdateCheckThresholds(studioId);
   return (
     <section aria-labelledby="thresholds-h" className="mb-10">
       <h2 id="thresholds-h" className="mb-1 text-lg font-semibold">Stack check limits</h2>
       <p className="mb-3 text-sm text-slate">When a stack’s checks raise a problem. Empty fields use the default shown; every stack is checked again after a change.</p>
       <QueryState isPending={thresholds.isPending} error={thresholds.error} label="check limits">
-        {thresholds.data ? <ThresholdsForm key={thresholds.data.updatedAt ?? 'defaults'} studioId={studioId} view={thresholds.data} canEdit={canEdit} /> : null}
+        {thresholds.data ? <ThresholdsForm key={thresholds.data.updatedAt ?? 'defaults'} view={thresholds.data} canEdit={canEdit} save={save} /> : null}
       </QueryState>
     </section>
   );
 }
 
-function ThresholdsForm({ studioId, view, canEdit }: { studioId: string; view: CheckThresholdsView; canEdit: boolean }) {
+function ThresholdsForm({ view, canEdit, save }: { view: CheckThresholdsView; canEdit: boolean; save: ReturnType<typeof useUpdateCheckThresholds> }) {
   const [text, setText] = useState<Record<Key, string>>(() => Object.fromEntries(FIELDS.map(({ key }) => [key, view.custom[key] === undefined ? '' : String(view.custom[key])])) as Record<Key, string>);
   const [localErrors, setLocalErrors] = useState<Partial<Record<Key, string>>>({});
-  const save = useUpdateCheckThresholds(studioId);
   const serverError = save.error instanceof ApiError ? save.error : null;
   const submit = (e: FormEvent) => {
     e.preventDefault();

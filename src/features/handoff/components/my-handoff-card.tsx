@@ -6,7 +6,7 @@ import { askForMemberBundle } from '../api/ask-for-bundle';
 import { memberBundleUrl, mergedFileUrl, mergedPreviewUrl } from '../api/get-handoff';
 import { myHandoffsQueryOptions, stackContactSheetUrl } from '../api/get-my-handoffs';
 import { memberMergedUrl } from '../api/upload-merged';
-import { when } from '../lib/format';
+import { shootDay, when } from '../lib/format';
 import { BundleDownload } from './bundle-download';
 import { MergedResultCard } from './merged-result-card';
 import { MergedUpload } from './merged-upload';
@@ -32,7 +32,7 @@ export function MyHandoffCard({ studioId, row, highlighted }: { studioId: string
         <header>
           <h2 id={headingId} className="text-lg font-semibold">{row.stackName}</h2>
           <p className="text-sm text-slate">
-            {row.sessionTitle} · shot {row.shootDate} · <span className="num">{count(row.frameCount)}</span> frames
+            {row.sessionTitle} · shot {shootDay(row.shootDate)} · <span className="num">{count(row.frameCount)}</span> frames
           </p>
           <p className="text-sm">
             <span className="rounded bg-moss/10 px-2 py-0.5 font-medium text-moss">{STACK_STATE_LABELS[row.state]}</span>

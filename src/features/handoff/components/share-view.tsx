@@ -5,7 +5,7 @@ import { count } from '@/lib/units';
 import { askForShareBundle } from '../api/ask-for-bundle';
 import { shareBundleUrl, shareContactSheetUrl, shareQueryOptions } from '../api/get-share';
 import { shareMergedUrl } from '../api/upload-merged';
-import { bytes, timeLeft, when } from '../lib/format';
+import { bytes, shootDay, timeLeft, when } from '../lib/format';
 import { BundleDownload } from './bundle-download';
 import { MergedUpload } from './merged-upload';
 
@@ -20,7 +20,7 @@ export function ShareView({ token, view }: { token: string; view: SharePageView 
         <p className="text-sm tracking-wide text-slate">{view.studioName} sent you a stack to merge</p>
         <h1 className="text-2xl font-semibold">{view.stackName}</h1>
         <p className="text-sm text-slate">
-          {view.sessionTitle} · shot {view.shootDate} · <span className="num">{count(view.frameCount)}</span> frames ·{' '}
+          {view.sessionTitle} · shot {shootDay(view.shootDate)} · <span className="num">{count(view.frameCount)}</span> frames ·{' '}
           <span className="rounded bg-moss/10 px-2 py-0.5 font-medium text-moss">{STACK_STATE_LABELS[view.state]}</span>
         </p>
         <p className="num mt-1 text-sm">

@@ -10,6 +10,8 @@ export function bytes(n: number | null): string {
 
 const dateTime = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short', hour12: false });
 export const when = (iso: string | null) => (iso ? dateTime.format(new Date(iso)) : '—');
+/** A shoot date ("2026-05-14") as the reader writes dates; noon keeps it on the same day in every zone. */
+export const shootDay = (isoDate: string) => new Date(`${isoDate}T12:00:00`).toLocaleDateString(undefined, { dateStyle: 'medium' });
 
 /** "in 6 days", "in 5 h", or "expired". */
 export function timeLeft(iso: string, now = Date.now()): string {

@@ -90,7 +90,7 @@ const lenses: KindConfig<'lenses'> = {
     { key: 'widestFNumber', label: 'Widest f-number', unit: 'f/', type: 'number' },
     { key: 'narrowestFNumber', label: 'Narrowest f-number', unit: 'f/', type: 'number' },
     { key: 'maxMagnification', label: 'Native maximum magnification', unit: '×', type: 'number', hint: '1 for a 1:1 macro lens; about 0.1–0.2 for most others.' },
-    { key: 'pupilMagnification', label: 'Pupil magnification', type: 'number', hint: 'Exit ÷ entrance pupil diameter; 1 for a symmetric lens.' },
+    { key: 'pupilMagnification', label: 'Pupil magnification', unit: '×', type: 'number', hint: 'Exit ÷ entrance pupil diameter; 1 for a symmetric lens.' },
   ],
   empty: { name: '', focalLengthMm: '', widestFNumber: '', narrowestFNumber: '', maxMagnification: '', pupilMagnification: '1' },
   toForm: (l) => ({ name: l.name, focalLengthMm: str(l.focalLengthMm), widestFNumber: str(l.widestFNumber), narrowestFNumber: str(l.narrowestFNumber), maxMagnification: str(l.maxMagnification), pupilMagnification: str(l.pupilMagnification) }),
@@ -99,7 +99,7 @@ const lenses: KindConfig<'lenses'> = {
     { header: 'Focal length', cell: (l) => `${sig(l.focalLengthMm)} mm`, numeric: true },
     { header: 'Apertures', cell: (l) => `${fNumber(l.widestFNumber)} – ${fNumber(l.narrowestFNumber)}`, numeric: true },
     { header: 'Max. magnification', cell: (l) => `${sig(l.maxMagnification)}×`, numeric: true },
-    { header: 'Pupil magnification', cell: (l) => sig(l.pupilMagnification), numeric: true },
+    { header: 'Pupil magnification', cell: (l) => `${sig(l.pupilMagnification)}×`, numeric: true },
   ],
 };
 

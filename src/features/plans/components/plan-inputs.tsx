@@ -18,7 +18,7 @@ export function PlanInputs({ plan, kit }: { plan: PlanView; kit: Kit | undefined
     ['Focal length', `${sig(p.focalLengthMm)} mm`],
     ['Lens’s own magnification', `${sig(p.baseMagnification ?? 0)}×`],
     ['Extension', `${sig(p.extensionMm)} mm${k.extensionSetId && kit ? ` — ${named(kit.extensionSets, k.extensionSetId)}${tubes}` : ''}`],
-    ['Pupil magnification', sig(p.pupilMagnification ?? 1)],
+    ['Pupil magnification', `${sig(p.pupilMagnification ?? 1)}×`],
     ['Aperture', fNumber(p.fNumber)],
     ['Circle of confusion', `${sig(p.cocMm * 1000)} µm`],
     ['Depth-of-field model', p.dofModel === 'wave' ? 'Wave optics' : 'Geometric'],

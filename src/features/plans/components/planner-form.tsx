@@ -49,7 +49,7 @@ export function PlannerForm({ kit, state, onChange, errors, cocMm }: Props) {
         {field('focalLengthMm', 'Focal length', 'mm')}
         {field('baseMagnification', 'Lens’s own magnification', '×', lens ? `0 at infinity; up to ${sig(lens.maxMagnification)}× with this lens` : '0 at infinity focus')}
         {field('extensionMm', 'Extension', 'mm', state.tubeIndexes.length ? 'from the tubes ticked above' : undefined)}
-        {field('pupilMagnification', 'Pupil magnification', undefined, '1 for a symmetric lens')}
+        {field('pupilMagnification', 'Pupil magnification', '×', '1 for a symmetric lens')}
       </Group>
       <Group title="Aperture and sharpness">
         {field('fNumber', 'Aperture', 'f-number', lens ? `this lens: ${fNumber(lens.widestFNumber)} – ${fNumber(lens.narrowestFNumber)}` : undefined)}

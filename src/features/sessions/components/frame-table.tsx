@@ -5,6 +5,7 @@ import {
 import type { SessionFileView, SortingView } from '@shared/schemas/session-views';
 import { QueryState, EmptyState } from '@/components/query-state';
 import { count } from '@/lib/units';
+import { clockNote } from '@/lib/capture-time';
 import { useSessionFiles } from '../api/get-session-files';
 import { aperture, bytes, captureDateTime, flagLabel, focal, isoSpeed, shutter } from '../lib/format';
 
@@ -13,6 +14,7 @@ interface FileRow {
   name: string;
   kind: string;
   captureTimeMs: number | null;
+  captureOffsetMinutes: number | null;
   exposureTimeS: number | null;
   fNumber: number | null;
   iso: number | null;
@@ -29,7 +31,7 @@ const columns = [
   col.accessor('name', { header: 'File' }),
   col.accessor('kind', { header: 'Kind' }),
   col.accessor('place', { header: 'Stack' }),
-  col.accessor('captureTimeMs', { header: 'Captured', cell: (c) => captureDateTime(c.getValue()), sortUndefined: 'last', ...numeric }),
+  col.accessor('captureTimeMs', { header: 'Captured', cell: (c) => <span title={clockNote(c.row.original.captureOffsetMinutes)}>{captureDateTime(c.getValue(), c.row.original.captureOffsetMinutes)}</span>, sortUndefined: 'last', ...numeric }),
   col.accessor('exposureTimeS', { header: 'Shutter', cell: (c) => shutter(c.getValue()), ...numeric }),
   col.accessor('fNumber', { header: 'F-number', cell: (c) => aperture(c.getValue()), ...numeric }),
   col.accessor('iso', { header: 'ISO', cell: (c) => isoSpeed(c.getValue()), ...numeric }),
@@ -48,6 +50,7 @@ function rowsOf(files: SessionFileView[], view: SortingView | undefined): FileRo
     name: f.name,
     kind: f.isRaw ? `${f.kind} (RAW)` : f.kind,
     captureTimeMs: f.captureTimeMs,
+    captureOffsetMinutes: f.metadata.offsetMinutes ?? null,
     exposureTimeS: f.metadata.exposureTimeS ?? null,
     fNumber: f.metadata.fNumber ?? null,
     iso: f.metadata.iso ?? null,

@@ -1,6 +1,7 @@
 import type { FrameView } from '@shared/schemas/session-views';
 import { aperture, captureTime, flagLabel, isoSpeed, shutter } from '../lib/format';
 import { CheckGlyph } from './check-glyph';
+import { clockNote } from '@/lib/capture-time';
 
 interface Props {
   frame: FrameView;
@@ -16,37 +17,40 @@ interface Props {
 // Flags about the file itself (shown as words); exposure changes get the check glyph instead.
 const quietFlags = new Set(['exposure-change', 'no-preview']);
 
-/** One frame: a small preview, its number, time and exposure; a button that selects it. */
+/** One frame: a small preview, its number, time and exposure; a button that selects it where it may be edited. */
 export function FrameTile({ frame, number, previewUrl, selected, selectable, context, onToggle }: Props) {
   const fileFlags = frame.flags.filter((f) => !quietFlags.has(f));
+  const box = `flex w-full flex-col rounded border p-1 text-left text-xs ${selected ? 'border-moss bg-moss/10 ring-2 ring-moss' : 'border-rule bg-card'} ${frame.excluded ? 'opacity-60' : ''}`;
+  const body = (
+    <>
+      <span className="sr-only">
+        Frame {number} of {context}: {frame.fileName}{frame.excluded ? ', excluded' : ''}{fileFlags.length ? `, ${fileFlags.map(flagLabel).join(', ')}` : ''}.
+      </span>
+      <Thumb frame={frame} url={previewUrl} />
+      <span className="num mt-1 flex items-center justify-between gap-1">
+        <span className="font-semibold">{number}</span>
+        <span className="text-slate" title={clockNote(frame.captureOffsetMinutes)}>{captureTime(frame.captureTimeMs, frame.captureOffsetMinutes)}</span>
+      </span>
+      <span className="num truncate text-slate">{shutter(frame.exposureTimeS)} · {aperture(frame.fNumber)}</span>
+      <span className="num flex items-center justify-between gap-1 text-slate">
+        <span>{isoSpeed(frame.iso)}</span>
+        <span className="flex items-center gap-0.5">
+          {frame.flags.includes('exposure-change') ? <CheckGlyph code="exposure-jump" sizePx={12} /> : null}
+          {frame.files.length > 1 ? <span title="RAW and picture of one exposure">RAW+</span> : null}
+        </span>
+      </span>
+      {frame.excluded ? <span className="font-medium text-clay line-through decoration-clay/60">excluded</span> : null}
+      {fileFlags.length ? <span className="truncate text-clay" title={fileFlags.map(flagLabel).join(', ')}>{flagLabel(fileFlags[0])}{fileFlags.length > 1 ? ` +${fileFlags.length - 1}` : ''}</span> : null}
+    </>
+  );
+  // A frame that cannot be selected here is no button: the keyboard skips it instead of stopping at a control that does nothing.
   return (
     <li className="w-[7.5rem] shrink-0">
-      <button
-        type="button"
-        aria-pressed={selectable ? selected : undefined}
-        onClick={selectable ? onToggle : undefined}
-        title={frame.fileName}
-        className={`flex w-full flex-col rounded border p-1 text-left text-xs ${selected ? 'border-moss bg-moss/10 ring-2 ring-moss' : 'border-rule bg-card hover:border-slate'} ${frame.excluded ? 'opacity-60' : ''}`}
-      >
-        <span className="sr-only">
-          Frame {number} of {context}: {frame.fileName}{frame.excluded ? ', excluded' : ''}{fileFlags.length ? `, ${fileFlags.map(flagLabel).join(', ')}` : ''}.
-        </span>
-        <Thumb frame={frame} url={previewUrl} />
-        <span className="num mt-1 flex items-center justify-between gap-1">
-          <span className="font-semibold">{number}</span>
-          <span className="text-slate">{captureTime(frame.captureTimeMs)}</span>
-        </span>
-        <span className="num truncate text-slate">{shutter(frame.exposureTimeS)} · {aperture(frame.fNumber)}</span>
-        <span className="num flex items-center justify-between gap-1 text-slate">
-          <span>{isoSpeed(frame.iso)}</span>
-          <span className="flex items-center gap-0.5">
-            {frame.flags.includes('exposure-change') ? <CheckGlyph code="exposure-jump" sizePx={12} /> : null}
-            {frame.files.length > 1 ? <span title="RAW and picture of one exposure">RAW+</span> : null}
-          </span>
-        </span>
-        {frame.excluded ? <span className="font-medium text-clay line-through decoration-clay/60">excluded</span> : null}
-        {fileFlags.length ? <span className="truncate text-clay" title={fileFlags.map(flagLabel).join(', ')}>{flagLabel(fileFlags[0])}{fileFlags.length > 1 ? ` +${fileFlags.length - 1}` : ''}</span> : null}
-      </button>
+      {selectable ? (
+        <button type="button" aria-pressed={selected} onClick={onToggle} title={frame.fileName} className={`${box} hover:border-slate`}>{body}</button>
+      ) : (
+        <div title={frame.fileName} className={box}>{body}</div>
+      )}
     </li>
   );
 }

@@ -80,6 +80,7 @@ export function SortingPanel({ studioId, sessionId, canEdit, plans }: Props) {
                   {view.stacks.map((s, i) => (
                     <StackRow
                       key={s.id}
+                      sessionId={sessionId}
                       stack={s}
                       isLast={i === view.stacks.length - 1}
                       canEdit={canEdit}

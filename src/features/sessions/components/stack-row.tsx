@@ -1,7 +1,9 @@
 import { useState, type FormEvent } from 'react';
+import { Link } from 'react-router';
 import type { StackView } from '@shared/schemas/session-views';
 import { Button } from '@/components/button';
 import { count } from '@/lib/units';
+import { paths } from '@/app/paths';
 import { settingsSummary, START_REASONS, timeSpan } from '../lib/format';
 import { FrameTile } from './frame-tile';
 
@@ -11,6 +13,7 @@ export interface PlanOption {
 }
 
 interface Props {
+  sessionId: string;
   stack: StackView;
   isLast: boolean;
   canEdit: boolean;
@@ -31,7 +34,7 @@ const STATE_STYLE: Record<string, string> = {
 };
 
 /** One stack: its name, state, figures and frames in order, with the edits a person may make. */
-export function StackRow({ stack, isLast, canEdit, busy, plans, selected, previewUrl, onToggle, onRename, onLinkPlan, onState, onMergeNext }: Props) {
+export function StackRow({ sessionId, stack, isLast, canEdit, busy, plans, selected, previewUrl, onToggle, onRename, onLinkPlan, onState, onMergeNext }: Props) {
   const [renaming, setRenaming] = useState(false);
   const [name, setName] = useState(stack.name);
   const editable = canEdit && (stack.state === 'draft' || stack.state === 'ready');
@@ -53,7 +56,11 @@ export function StackRow({ stack, isLast, canEdit, busy, plans, selected, previe
             <Button variant="quiet" onClick={() => { setRenaming(false); setName(stack.name); }}>Cancel</Button>
           </form>
         ) : (
-          <h3 id={headingId} className="text-base font-semibold">{stack.name}</h3>
+          <h3 id={headingId} className="text-base font-semibold">
+            <Link to={paths.stack(sessionId, stack.id)} className="text-ink underline decoration-rule underline-offset-4 hover:text-moss hover:decoration-moss" title="Open the stack page: contact sheet, checks, bundle and hand-off">
+              {stack.name}
+            </Link>
+          </h3>
         )}
         <span className={`rounded-full border px-2 py-0.5 text-xs font-medium ${STATE_STYLE[stack.state] ?? 'border-steel text-steel'}`}>{stack.state}</span>
         <span className="num text-sm">{count(stack.frames.length)} frames{excluded ? <span className="text-clay"> ({count(excluded)} excluded)</span> : null}</span>
@@ -64,7 +71,7 @@ export function StackRow({ stack, isLast, canEdit, busy, plans, selected, previe
 
       {canEdit ? (
         <div className="mt-2 flex flex-wrap items-center gap-2">
-          {!editable ? <span className="text-sm text-slate">This stack is {stack.state}; it is no longer edited here.</span> : null}
+          {!editable ? <span className="text-sm text-slate">This stack is {stack.state.replace('-', ' ')}; it is no longer edited here.</span> : null}
           {editable && !renaming ? <Button variant="secondary" disabled={busy} onClick={() => { setName(stack.name); setRenaming(true); }} aria-label={`Rename (${stack.name})`}>Rename</Button> : null}
           {editable ? (
             stack.state === 'draft'

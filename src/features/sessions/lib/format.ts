@@ -1,5 +1,6 @@
 // How the sessions pages print sizes, times and camera settings; every number with its unit.
 import { duration, exposure, fNumber, sig } from '@/lib/units';
+import { onCameraClock } from '@/lib/capture-time';
 
 export function bytes(n: number): string {
   if (!Number.isFinite(n)) return '—';
@@ -9,12 +10,12 @@ export function bytes(n: number): string {
   return `${sig(n / 1e9)} GB`;
 }
 
-const timeFormat = new Intl.DateTimeFormat(undefined, { hour: '2-digit', minute: '2-digit', second: '2-digit', fractionalSecondDigits: 1, hour12: false });
-const dateTimeFormat = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'medium', hour12: false });
+const TIME: Intl.DateTimeFormatOptions = { hour: '2-digit', minute: '2-digit', second: '2-digit', fractionalSecondDigits: 1 };
+const DATE_TIME: Intl.DateTimeFormatOptions = { dateStyle: 'medium', timeStyle: 'medium' };
 
-/** Capture time of day with tenths of a second (frames of a burst are fractions of a second apart). */
-export const captureTime = (ms: number | null) => (ms === null ? 'no time' : timeFormat.format(new Date(ms)));
-export const captureDateTime = (ms: number | null) => (ms === null ? '—' : dateTimeFormat.format(new Date(ms)));
+/** Capture time of day with tenths of a second (frames of a burst are fractions of a second apart), on the camera's clock. */
+export const captureTime = (ms: number | null, offsetMinutes?: number | null) => (ms === null ? 'no time' : onCameraClock(ms, offsetMinutes, TIME));
+export const captureDateTime = (ms: number | null, offsetMinutes?: number | null) => (ms === null ? '—' : onCameraClock(ms, offsetMinutes, DATE_TIME));
 
 export const shootDate = (isoDate: string) => new Date(`${isoDate}T12:00:00`).toLocaleDateString(undefined, { dateStyle: 'medium' });
 

@@ -1,6 +1,7 @@
 import type { StackFrameView } from '@shared/schemas/bundles';
 import { EmptyState } from '@/components/query-state';
 import { exposure, fNumber } from '@/lib/units';
+import { clockNote } from '@/lib/capture-time';
 import { captureTime } from '../lib/format';
 import { FrameMark } from './frame-mark';
 
@@ -27,7 +28,7 @@ export function StackFrameGrid({ frames, stackName, previewUrl }: Props) {
             <Thumb frame={f} url={previewUrl(f.id)} />
             <div className="num mt-1 flex items-center justify-between gap-1">
               <span className={`font-semibold ${f.excluded ? 'text-clay line-through' : ''}`}>{f.number}</span>
-              <span className="text-slate">{captureTime(f.captureTimeMs)}</span>
+              <span className="text-slate" title={clockNote(f.captureOffsetMinutes)}>{captureTime(f.captureTimeMs, f.captureOffsetMinutes)}</span>
             </div>
             <div className="num text-slate">
               {f.exposureTimeS === null ? '—' : exposure(f.exposureTimeS)} · {f.fNumber === null ? 'f/—' : fNumber(f.fNumber)} · {f.iso === null ? 'ISO —' : `ISO ${f.iso}`}

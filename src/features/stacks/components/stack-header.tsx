@@ -10,14 +10,24 @@ const STATE_STYLE: Record<string, string> = {
 };
 
 /** The stack's name, state, session, plan and counts. */
-export function StackHeader({ stack }: { stack: StackDetailView }) {
+export function StackHeader({ stack, canSeeSessions }: { stack: StackDetailView; canSeeSessions: boolean }) {
   const { counts } = stack;
   return (
     <header className="mb-6 border-b border-rule pb-4">
       <nav aria-label="Breadcrumb" className="mb-2 text-sm">
-        <Link to={paths.sessions} className="text-moss hover:underline">Sessions</Link>
-        <span className="mx-1 text-slate" aria-hidden="true">›</span>
-        <Link to={paths.session(stack.session.id)} className="text-moss hover:underline">{stack.session.title}</Link>
+        {canSeeSessions ? (
+          <>
+            <Link to={paths.sessions} className="text-moss hover:underline">Sessions</Link>
+            <span className="mx-1 text-slate" aria-hidden="true">›</span>
+            <Link to={paths.session(stack.session.id)} className="text-moss hover:underline">{stack.session.title}</Link>
+          </>
+        ) : (
+          <>
+            <Link to={paths.handoffs} className="text-moss hover:underline">Handed to me</Link>
+            <span className="mx-1 text-slate" aria-hidden="true">›</span>
+            <span>{stack.session.title}</span>
+          </>
+        )}
         <span className="ml-2 text-slate">{shootDate(stack.session.shootDate)}</span>
       </nav>
       <div className="flex flex-wrap items-center gap-x-4 gap-y-2">

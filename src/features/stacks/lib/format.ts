@@ -1,5 +1,6 @@
 // How the stack page prints sizes, times and marks; every number with its unit.
 import { sig } from '@/lib/units';
+import { onCameraClock } from '@/lib/capture-time';
 
 export function bytes(n: number | null): string {
   if (n === null || !Number.isFinite(n)) return '—';
@@ -9,11 +10,11 @@ export function bytes(n: number | null): string {
   return `${sig(n / 1e9)} GB`;
 }
 
-const timeFormat = new Intl.DateTimeFormat(undefined, { hour: '2-digit', minute: '2-digit', second: '2-digit', fractionalSecondDigits: 1, hour12: false });
+const TIME: Intl.DateTimeFormatOptions = { hour: '2-digit', minute: '2-digit', second: '2-digit', fractionalSecondDigits: 1 };
 const dateTimeFormat = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short', hour12: false });
 
-/** Time of day with tenths: frames of a stack are often fractions of a second apart. */
-export const captureTime = (ms: number | null) => (ms === null ? 'no time' : timeFormat.format(new Date(ms)));
+/** Time of day with tenths (frames of a stack are often fractions of a second apart), on the camera's clock. */
+export const captureTime = (ms: number | null, offsetMinutes?: number | null) => (ms === null ? 'no time' : onCameraClock(ms, offsetMinutes, TIME));
 export const when = (iso: string | null) => (iso ? dateTimeFormat.format(new Date(iso)) : '—');
 export const shootDate = (isoDate: string) => new Date(`${isoDate}T12:00:00`).toLocaleDateString(undefined, { dateStyle: 'medium' });
 

@@ -42,7 +42,7 @@ export function MembersTable({ studioId, members, isOwner, myUserId }: { studioI
               <td className="py-2 pr-4 num">{new Date(m.since).toLocaleDateString()}</td>
               {isOwner ? (
                 <td className="py-2 text-right">
-                  <button type="button" className="text-clay hover:underline" onClick={() => { if (window.confirm(`Remove ${m.name} from the studio?`)) remove.mutate(m.id); }}>
+                  <button type="button" className="text-clay hover:underline" aria-label={`Remove ${m.name} from the studio`} onClick={() => { if (window.confirm(`Remove ${m.name} from the studio?`)) remove.mutate(m.id); }}>
                     Remove
                   </button>
                 </td>
