@@ -43,6 +43,9 @@ async function signInAs(role: string): Promise<Page> {
   }
   await h.context.clearCookies();
   const page = await h.context.newPage();
+  page.on('response', (r) => { if (r.url().includes('/api/')) console.log('DEBUG', role, r.status(), r.url(), r.headers()['set-cookie']?.slice(0, 30)); });
+  page.on('framenavigated', (f) => console.log('DEBUG nav', f.url()));
+  console.log('DEBUG cookies', JSON.stringify(await h.context.cookies()));
   await signInThroughForm(page, h.baseUrl, demo(role).email, demo(role).password);
   return page;
 }
