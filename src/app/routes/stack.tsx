@@ -1,7 +1,8 @@
 import { Link, useParams } from 'react-router';
 import { ErrorNote, PageHeader, QueryState } from '@/components/query-state';
 import { useActiveStudio } from '@/features/auth/hooks/use-active-studio';
-import { stackFramePreviewUrl, useStack } from '@/features/stacks/api/get-stack';
+import { useQueryClient } from '@tanstack/react-query';
+import { stackFramePreviewUrl, stackQueryOptions, useStack } from '@/features/stacks/api/get-stack';
 import { StackHeader } from '@/features/stacks/components/stack-header';
 import { StackFrameGrid } from '@/features/stacks/components/stack-frame-grid';
 import { ContactSheetPanel } from '@/features/stacks/components/contact-sheet-panel';
@@ -16,6 +17,7 @@ export function Component() {
   const { stackId = '' } = useParams();
   const { studioId, canEdit, role } = useActiveStudio();
   const stack = useStack(studioId, stackId);
+  const qc = useQueryClient();
   const s = stack.data;
   if (stack.error) return <StackRefused error={stack.error} retoucher={role === 'retoucher'} />;
   return (
@@ -28,7 +30,7 @@ export function Component() {
             <div className="min-w-0 space-y-4">
               <StackBundlePanel studioId={studioId} stack={s} canEdit={canEdit} canDownload={role !== 'guest'} />
               <HandoffPanel stackId={s.id} />
-              <StackChecksPanel stackId={s.id} />
+              <StackChecksPanel stackId={s.id} onResultsChanged={() => qc.invalidateQueries({ queryKey: stackQueryOptions(studioId, s.id).queryKey, exact: true })} />
               {canEdit ? <SessionBundlePanel studioId={studioId} sessionId={s.session.id} sessionTitle={s.session.title} /> : null}
             </div>
           </div>
