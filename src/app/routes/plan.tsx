@@ -39,7 +39,7 @@ export function Component() {
               </>
             ) : null}
           </PageHeader>
-          <ErrorNote error={duplicate.error ?? remove.error} />
+          <ErrorNote error={duplicate.error ?? remove.error ?? kit.error} />
           <p className="mb-6 text-sm text-slate">
             Updated {new Date(p.updatedAt).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' })}
             {canEdit ? '' : ' · read-only'}

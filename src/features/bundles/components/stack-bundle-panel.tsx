@@ -60,6 +60,7 @@ export function StackBundlePanel({ studioId, stack, canEdit, canDownload }: Prop
         ) : null}
         {canEdit && stack.counts.included === 0 ? <p className="text-sm text-clay">Every frame is excluded: there is nothing to bundle.</p> : null}
         {request.error ? <ErrorNote error={request.error} /> : null}
+        {latest.error ? <ErrorNote error={latest.error} /> : null}
       </div>
     </section>
   );

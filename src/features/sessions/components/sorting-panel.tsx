@@ -76,6 +76,13 @@ export function SortingPanel({ studioId, sessionId, canEdit, plans }: Props) {
                   {count(view.stacks.length)} stacks · {count(view.loose.length)} loose frames
                   {canEdit ? ' · select frames (Enter or Space) to move, exclude or split' : ''}
                 </p>
+                {view.stacks.length === 0 ? (
+                  <div className="mt-3">
+                    <EmptyState title="No stacks on this card yet">
+                      {canEdit ? 'Every frame is loose. Loosen the gap rule above (a larger gap factor or a smaller “Smallest stack”), or undo the last change.' : 'Every frame is loose for now.'}
+                    </EmptyState>
+                  </div>
+                ) : null}
                 <ol className="mt-3 space-y-3" aria-label="Stacks">
                   {view.stacks.map((s, i) => (
                     <StackRow
