@@ -5,28 +5,11 @@ import { DEFAULT_GROUPING_OPTIONS } from '../../shared/grouping';
 import { sessionInStudio } from './session-service';
 import { NotFound } from '../lib/errors';
 import { captureOffsetMinutes } from './capture-offset';
+import { storedCheckCodesForSession } from './check-results-service';
+import type { FrameView } from '../../shared/schemas/session-views';
 
-export interface FrameView {
-  id: string;
-  fileName: string;
-  captureTimeMs: number | null;
-  /** The camera's UTC offset at capture, when it recorded one. */
-  captureOffsetMinutes: number | null;
-  fNumber: number | null;
-  focalLengthMm: number | null;
-  exposureTimeS: number | null;
-  iso: number | null;
-  orientation: number | null;
-  bodySerial: string | null;
-  fileNumber: number | null;
-  excluded: boolean;
-  flags: string[];
-  previewStatus: string;
-  previewError: string | null;
-  files: { id: string; name: string; kind: string; isRaw: boolean; sizeBytes: number }[];
-}
 
-function frameView(f: Frame, files: StoredFile[]): FrameView {
+function frameView(f: Frame, files: StoredFile[], checkCodes: string[]): FrameView {
   return {
     id: f.id,
     fileName: f.fileName,
@@ -41,6 +24,7 @@ function frameView(f: Frame, files: StoredFile[]): FrameView {
     fileNumber: f.fileNumber,
     excluded: f.excluded,
     flags: f.flags,
+    checkCodes,
     previewStatus: f.previewStatus,
     previewError: f.previewError,
     files: files.map((x) => ({ id: x.id, name: x.displayName, kind: x.kind, isRaw: x.isRaw, sizeBytes: x.sizeBytes })),
@@ -50,15 +34,16 @@ function frameView(f: Frame, files: StoredFile[]): FrameView {
 export async function sortingView(studioId: string, sessionId: string) {
   const session = await sessionInStudio(studioId, sessionId);
   const ds = getDataSource();
-  const [stacks, frames, files, last] = await Promise.all([
+  const [stacks, frames, files, last, codes] = await Promise.all([
     ds.getRepository(Stack).find({ where: { sessionId }, order: { position: 'ASC' } }),
     ds.getRepository(Frame).find({ where: { sessionId }, order: { captureTimeMs: 'ASC', fileName: 'ASC' } }),
     ds.getRepository(StoredFile).find({ where: { sessionId } }),
     ds.getRepository(SortingSnapshot).findOne({ where: { sessionId }, order: { createdAt: 'DESC' }, select: { id: true, label: true } }),
+    storedCheckCodesForSession(sessionId),
   ]);
   const filesByFrame = new Map<string, StoredFile[]>();
   for (const f of files) if (f.frameId) filesByFrame.set(f.frameId, [...(filesByFrame.get(f.frameId) ?? []), f]);
-  const view = (f: Frame) => frameView(f, filesByFrame.get(f.id) ?? []);
+  const view = (f: Frame) => frameView(f, filesByFrame.get(f.id) ?? [], codes.get(f.id) ?? []);
   return {
     sessionId,
     groupingOptions: { ...DEFAULT_GROUPING_OPTIONS, ...session.groupingOptions },

@@ -32,6 +32,8 @@ export interface FrameView {
   fileNumber: number | null;
   excluded: boolean;
   flags: string[];
+  /** Codes of the stack checks that mark this frame (exposure-jump, focus-gap, …), from the latest run. */
+  checkCodes: string[];
   previewStatus: PreviewStatus | string;
   previewError: string | null;
   files: { id: string; name: string; kind: string; isRaw: boolean; sizeBytes: number }[];

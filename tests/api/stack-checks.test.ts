@@ -208,6 +208,10 @@ describe('marks on the stack page and in the bundle', () => {
     const ids = d.frames;
     expect(ids.filter((f) => bySession.has(f.id)).map((f) => `${f.number}:${bySession.get(f.id)!.join('+')}`)).toEqual(marked);
     expect(bySession.size).toBe(marked.length);
+    // …and the sorting view carries them on its frames.
+    const sorting = (await as.photographer.get(`${sessionsBase(fx.studioId)}/${sessionId}/sorting`).expect(200)).body as { stacks: { id: string; frames: { checkCodes: string[] }[] }[] };
+    const faulty = sorting.stacks.find((s) => s.id === faultyId)!;
+    expect(faulty.frames.map((f, i) => (f.checkCodes.length ? `${i + 1}:${f.checkCodes.join('+')}` : null)).filter(Boolean)).toEqual(marked);
   });
 
   it('write the check codes as flags into the bundle manifest', async () => {

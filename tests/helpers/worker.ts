@@ -4,8 +4,14 @@ import type { Worker } from 'bullmq';
 export async function startTestWorkers(): Promise<{ stop: () => Promise<void> }> {
   const { getRedis } = await import('../../server/lib/redis');
   const { startWorkers } = await import('../../worker/run');
-  const workers: Worker[] = startWorkers(getRedis().duplicate({ maxRetriesPerRequest: null }));
-  return { stop: async () => void (await Promise.all(workers.map((w) => w.close()))) };
+  const connection = getRedis().duplicate({ maxRetriesPerRequest: null });
+  const workers: Worker[] = startWorkers(connection);
+  return {
+    stop: async () => {
+      await Promise.all(workers.map((w) => w.close()));
+      await connection.quit().catch(() => undefined);
+    },
+  };
 }
 
 export async function until<T>(what: string, fn: () => Promise<T | undefined | false>, timeoutMs = 60_000): Promise<T> {

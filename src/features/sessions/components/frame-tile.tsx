@@ -1,6 +1,8 @@
 import type { FrameView } from '@shared/schemas/session-views';
 import { aperture, captureTime, flagLabel, isoSpeed, shutter } from '../lib/format';
 import { CheckGlyph } from './check-glyph';
+import { CHECK_GLYPHS } from '@shared/check-glyphs';
+import type { CheckCode } from '@shared/schemas/checks';
 import { clockNote } from '@/lib/capture-time';
 
 interface Props {
@@ -14,7 +16,9 @@ interface Props {
   onToggle: () => void;
 }
 
-// Flags about the file itself (shown as words); exposure changes get the check glyph instead.
+const isCheckCode = (code: string): code is CheckCode => code in CHECK_GLYPHS;
+
+// Flags about the file itself (shown as words); the stack checks' findings show as glyphs.
 const quietFlags = new Set(['exposure-change', 'no-preview']);
 
 /** One frame: a small preview, its number, time and exposure; a button that selects it where it may be edited. */
@@ -24,7 +28,7 @@ export function FrameTile({ frame, number, previewUrl, selected, selectable, con
   const body = (
     <>
       <span className="sr-only">
-        Frame {number} of {context}: {frame.fileName}{frame.excluded ? ', excluded' : ''}{fileFlags.length ? `, ${fileFlags.map(flagLabel).join(', ')}` : ''}.
+        Frame {number} of {context}: {frame.fileName}{frame.excluded ? ', excluded' : ''}{frame.checkCodes.length ? `, marked by the checks` : ''}{fileFlags.length ? `, ${fileFlags.map(flagLabel).join(', ')}` : ''}.
       </span>
       <Thumb frame={frame} url={previewUrl} />
       <span className="num mt-1 flex items-center justify-between gap-1">
@@ -35,7 +39,7 @@ export function FrameTile({ frame, number, previewUrl, selected, selectable, con
       <span className="num flex items-center justify-between gap-1 text-slate">
         <span>{isoSpeed(frame.iso)}</span>
         <span className="flex items-center gap-0.5">
-          {frame.flags.includes('exposure-change') ? <CheckGlyph code="exposure-jump" sizePx={12} /> : null}
+          {frame.checkCodes.filter(isCheckCode).map((code) => <CheckGlyph key={code} code={code} sizePx={12} />)}
           {frame.files.length > 1 ? <span title="RAW and picture of one exposure">RAW+</span> : null}
         </span>
       </span>
