@@ -2,19 +2,8 @@ import { getDataSource } from '../lib/data-source';
 import { NotFound } from '../lib/errors';
 import { ShootSession } from '../entities/session';
 import type { SessionCreate } from '../../shared/schemas/sessions';
+import type { SessionRow } from '../../shared/schemas/session-views';
 
-export interface SessionRow {
-  id: string;
-  title: string;
-  shootDate: string;
-  subject: string;
-  location: string;
-  notes: string;
-  frameCount: number;
-  stackCount: number;
-  looseCount: number;
-  updatedAt: string;
-}
 
 /** A session of this studio, or 404 (never another studio's: ids are checked against the studio). */
 export async function sessionInStudio(studioId: string, sessionId: string): Promise<ShootSession> {
