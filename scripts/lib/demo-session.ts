@@ -12,6 +12,9 @@ import { handOffStack } from '../../server/services/handoff-service';
 import { attachMergedResult } from '../../server/services/merged-result-service';
 import { DEMO_USERS } from './demo-users';
 import sharp from 'sharp';
+import type { Job } from 'bullmq';
+import { Frame } from '../../server/entities/session';
+import { framePreviewJob } from '../../worker/jobs/frame-preview';
 import { renderCard } from './stack-renderer';
 import type { Role } from '../../shared/roles';
 
@@ -60,6 +63,13 @@ export async function seedDemoSession({ studioId, users }: { studioId: string; u
   const who = (role: Role) => DEMO_USERS.find((u) => u.role === role)!;
   const photographer = { userId: users.photographer, label: who('photographer').name, email: who('photographer').email };
   for (const stack of [stacks[0], stacks[3]].filter(Boolean)) {
+    // The seed makes these stacks' previews itself (the worker makes the rest), so the contact
+    // sheets in their hand-off bundles show every frame.
+    const frames = await ds.getRepository(Frame).find({ where: { stackId: stack.id }, select: { id: true } });
+    for (const f of frames) {
+      const job = { data: { frameId: f.id, sessionId: session.id }, updateProgress: async () => undefined } as unknown as Job<{ frameId: string; sessionId: string }>;
+      await framePreviewJob(job);
+    }
     await setStackState(studioId, session.id, stack.id, 'ready', photographer);
     await handOffStack(studioId, stack.id, photographer, { to: 'member', retoucherUserId: users.retoucher });
   }

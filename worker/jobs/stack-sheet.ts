@@ -57,9 +57,9 @@ export async function ensureContactSheet(m: StackMaterial): Promise<SheetFiles> 
  * While any frame's preview is still being made (a hand-off right after the import), put the job
  * back for a moment instead of drawing grey cells; after PREVIEW_WAIT_MS draw what there is.
  */
-export async function waitForPreviews(job: Job, token: string | undefined, materials: StackMaterial[]) {
+export async function waitForPreviews(job: Job, token: string | undefined, materials: StackMaterial[], waitMs = PREVIEW_WAIT_MS) {
   const pending = materials.some((m) => includedFrames(m).some((f) => f.frame.previewStatus === 'pending'));
-  if (pending && token && Date.now() - job.timestamp < PREVIEW_WAIT_MS) {
+  if (pending && token && Date.now() - job.timestamp < waitMs) {
     await job.updateProgress(5);
     await job.moveToDelayed(Date.now() + RECHECK_MS, token);
     throw new DelayedError();
