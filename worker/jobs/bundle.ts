@@ -9,17 +9,13 @@ import { stackFileKeys } from '../../server/lib/stack-file-keys';
 import { Bundle } from '../../server/entities/bundle';
 import { writeBundle, type BundleStackInput } from '../lib/bundle';
 import { bundleStackInput, includedFrames, loadStackMaterial, removeLeftoverParts, type StackMaterial } from '../lib/stack-material';
-import { ensureContactSheet, waitForPreviews } from './stack-sheet';
-
-// A bundle waits only briefly for previews still being made: the originals are what the retoucher
-// needs, and a late sheet shows the missing cells in grey rather than holding the bundle back.
-const BUNDLE_PREVIEW_WAIT_MS = 20_000;
+import { ensureContactSheet } from './stack-sheet';
 import type { Payload } from '../queues';
 
 /** Share of the progress bar for making missing contact sheets; the rest is the zip. */
 const SHEETS_SHARE = 10;
 
-export async function bundleJob(job: Job<Payload<'bundle'>>, token?: string): Promise<{ outcome: string; bytes?: number }> {
+export async function bundleJob(job: Job<Payload<'bundle'>>): Promise<{ outcome: string; bytes?: number }> {
   const repo = getDataSource().getRepository(Bundle);
   const bundle = await repo.findOneBy({ id: job.data.bundleId });
   if (!bundle) return { outcome: 'bundle gone' };
@@ -61,7 +57,6 @@ export async function bundleJob(job: Job<Payload<'bundle'>>, token?: string): Pr
   // Session bundles keep the stacks in the session's order.
   materials.sort((a, b) => a.stack.position - b.stack.position);
 
-  await waitForPreviews(job, token, materials, BUNDLE_PREVIEW_WAIT_MS);
   const stacks: BundleStackInput[] = [];
   for (const [index, m] of materials.entries()) {
     stacks.push(bundleStackInput(m, await ensureContactSheet(m)));

@@ -57,7 +57,7 @@ export async function ensureContactSheet(m: StackMaterial): Promise<SheetFiles> 
  * While any frame's preview is still being made (a hand-off right after the import), put the job
  * back for a moment instead of drawing grey cells; after PREVIEW_WAIT_MS draw what there is.
  */
-export async function waitForPreviews(job: Job, token: string | undefined, materials: StackMaterial[], waitMs = PREVIEW_WAIT_MS) {
+async function waitForPreviews(job: Job, token: string | undefined, materials: StackMaterial[], waitMs = PREVIEW_WAIT_MS) {
   const pending = materials.some((m) => includedFrames(m).some((f) => f.frame.previewStatus === 'pending'));
   if (pending && token && Date.now() - job.timestamp < waitMs) {
     await job.updateProgress(5);
