@@ -96,7 +96,7 @@ export async function requestSessionBundle(studioId: string, sessionId: string, 
     throw new BadInput('No stack of this session is past draft (with frames left in it): mark the stacks you have checked ready, then bundle the session.');
   }
   const versions = Object.fromEntries(stacks.map((s) => [s.id, s.version]));
-  return ds.transaction(async (tx) => {
+  const result = await ds.transaction(async (tx) => {
     // Serialises requests for one session so the same set of versions is bundled once.
     await tx.query(`SELECT pg_advisory_xact_lock(hashtext($1))`, [`session-bundle:${sessionId}`]);
     const live = await tx.getRepository(Bundle).createQueryBuilder('b')
@@ -107,9 +107,11 @@ export async function requestSessionBundle(studioId: string, sessionId: string, 
       studioId, sessionId, stackId: null, stackVersion: null, stackVersions: versions, kind: 'session', status: 'queued', progress: 0,
       fileName: safeStackFolderName(session.title, 'session'), createdBy: actorUserId,
     })));
-    await enqueueBundle(bundle);
-    return { bundle: toView(bundle, new Map(stacks.map((s) => [s.id, s.version]))), created: !live };
+    return { bundle, created: !live };
   });
+  // Only after the commit: a worker that takes the job at once must find the bundle's row.
+  await enqueueBundle(result.bundle);
+  return { bundle: toView(result.bundle, new Map(stacks.map((s) => [s.id, s.version]))), created: result.created };
 }
 
 export async function latestStackBundle(stackId: string): Promise<BundleView | null> {
