@@ -3,24 +3,14 @@
 import { performance } from 'node:perf_hooks';
 import { groupIntoStacks, type GroupingFrame } from '../shared/grouping';
 import { pairRawAndJpeg, type CardFile } from '../shared/raw-pairing';
+import { createRandom } from '../scripts/lib/stack-renderer/noise';
 
 const FRAME_COUNT = 10_000;
 const RUNS = 15;
 
-/** Deterministic pseudo-random numbers (mulberry32) so every run sees the same card. */
-function randomSource(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function syntheticCard(count: number): GroupingFrame[] {
-  const random = randomSource(42);
+  const random = createRandom(42); // seeded: every run sees the same card
   const frames: GroupingFrame[] = [];
   const clocks = { 'BODY-A': Date.UTC(2025, 4, 17, 8), 'BODY-B': Date.UTC(2025, 4, 17, 8) };
   while (frames.length < count) {

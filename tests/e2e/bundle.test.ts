@@ -4,26 +4,19 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import request from 'supertest';
 import { expectNoSeriousA11yViolations, screenshot, signInThroughForm, startBrowserHarness, type BrowserHarness } from '../helpers/browser';
 import { createStudioWithRoles, type StudioFixture } from '../helpers/fixtures';
 import { sessionWithCard, sessionsBase, shootBursts, type SortingV } from '../helpers/sessions';
 import { startTestWorkers, until } from '../helpers/worker';
 import { unzipTest, zipEntries } from '../helpers/bundles';
-import type { Agent } from '../helpers/api';
 
+import { agentFor, type Agent } from '../helpers/api';
 let h: BrowserHarness;
 let fx: StudioFixture;
 let workers: { stop: () => Promise<void> };
 const tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'lamella-e2e-bundle-'));
 
-async function apiAgent(creds: { email: string; password: string }): Promise<Agent> {
-  const agent = request.agent(h.baseUrl) as unknown as Agent;
-  agent.csrf = (await agent.get('/api/auth/csrf').expect(200)).body.csrfToken;
-  const signIn = await agent.post('/api/auth/sign-in').set('x-csrf-token', agent.csrf).send(creds).expect(200);
-  agent.csrf = signIn.body.csrfToken;
-  return agent;
-}
+const apiAgent = (creds: { email: string; password: string }): Promise<Agent> => agentFor(h.baseUrl, creds);
 
 beforeAll(async () => {
   h = await startBrowserHarness();

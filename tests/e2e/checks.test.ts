@@ -3,16 +3,15 @@
 // faults in its summary and on the frames, and nothing on the clean stack. The Studio page's
 // limits form refuses a bad limit beside its field.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import request from 'supertest';
 import type { Page } from 'playwright-core';
 import { expectNoSeriousA11yViolations, screenshot, signInThroughForm, startBrowserHarness, type BrowserHarness } from '../helpers/browser';
 import { createStudioWithRoles, type StudioFixture } from '../helpers/fixtures';
 import { createImport, createSession, sessionsBase, uploadFiles, type SortingV } from '../helpers/sessions';
 import { startTestWorkers, until } from '../helpers/worker';
-import type { Agent } from '../helpers/api';
 import { renderStack } from '../../scripts/lib/stack-renderer';
 import type { StackChecksView } from '../../shared/schemas/check-views';
 
+import { agentFor, type Agent } from '../helpers/api';
 let h: BrowserHarness;
 let fx: StudioFixture;
 let workers: { stop: () => Promise<void> };
@@ -23,13 +22,7 @@ const stacks = { faulty: { id: '', name: 'Dew drop, bumped lamp' }, clean: { id:
 const SIZE = { widthPx: 320, heightPx: 213, frameCount: 16, scene: 'drop-on-leaf' } as const;
 const GLYPH_NAMES = /^(Exposure jump|Focus gap|Duplicate frame|Setting change|Plan mismatch)$/;
 
-async function apiAgent(creds: { email: string; password: string }): Promise<Agent> {
-  const agent = request.agent(h.baseUrl) as unknown as Agent;
-  agent.csrf = (await agent.get('/api/auth/csrf').expect(200)).body.csrfToken;
-  const signIn = await agent.post('/api/auth/sign-in').set('x-csrf-token', agent.csrf).send(creds).expect(200);
-  agent.csrf = signIn.body.csrfToken;
-  return agent;
-}
+const apiAgent = (creds: { email: string; password: string }): Promise<Agent> => agentFor(h.baseUrl, creds);
 
 beforeAll(async () => {
   h = await startBrowserHarness();

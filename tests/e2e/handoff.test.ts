@@ -3,16 +3,15 @@
 // does the same through a share link; the photographer sees both stacks merged.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import fs from 'node:fs';
-import request from 'supertest';
 import sharp from 'sharp';
 import type { Download, Locator, Page } from 'playwright-core';
 import { expectNoSeriousA11yViolations, screenshot, signInThroughForm, signOutThroughShell, startBrowserHarness, type BrowserHarness } from '../helpers/browser';
 import { sessionsBase, shootBursts, sessionWithCard, type SortingV } from '../helpers/sessions';
 import { startTestWorkers, until } from '../helpers/worker';
 import { checkZip } from '../helpers/handoff';
-import type { Agent } from '../helpers/api';
 import { DEMO_USERS } from '../../scripts/lib/demo-users';
 
+import { agentFor, type Agent } from '../helpers/api';
 let h: BrowserHarness;
 let workers: { stop: () => Promise<void> };
 let photographerApi: Agent;
@@ -20,12 +19,7 @@ let studioId: string;
 const photographer = DEMO_USERS.find((u) => u.role === 'photographer')!;
 const retoucher = DEMO_USERS.find((u) => u.role === 'retoucher')!;
 
-async function apiAgent(creds: { email: string; password: string }): Promise<Agent> {
-  const agent = request.agent(h.baseUrl) as unknown as Agent;
-  agent.csrf = (await agent.get('/api/auth/csrf').expect(200)).body.csrfToken;
-  agent.csrf = (await agent.post('/api/auth/sign-in').set('x-csrf-token', agent.csrf).send(creds).expect(200)).body.csrfToken;
-  return agent;
-}
+const apiAgent = (creds: { email: string; password: string }): Promise<Agent> => agentFor(h.baseUrl, creds);
 
 /** A ready stack with its previews made, renamed so pages can tell the two stacks apart. */
 async function readyStack(name: string, prefix: string) {

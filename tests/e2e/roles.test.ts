@@ -4,17 +4,16 @@
 // sorting page is reached with Tab and shows a focus ring, stack names link to the stack page, pages
 // fit 1280 px, and capture times are on the camera's clock (checked against Debian's exiftool).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import request from 'supertest';
 import type { Page } from 'playwright-core';
 import { expectNoSeriousA11yViolations, screenshot, signInThroughForm, startBrowserHarness, type BrowserHarness } from '../helpers/browser';
 import { sessionsBase, type SortingV } from '../helpers/sessions';
 import { startTestWorkers, until } from '../helpers/worker';
 import { readWithExiftool } from '../helpers/exiftool';
-import type { Agent } from '../helpers/api';
 import { DEMO_USERS } from '../../scripts/lib/demo-users';
 import { DEMO_SESSION_TITLE } from '../../scripts/lib/demo-session';
 import type { StackChecksView } from '../../shared/schemas/check-views';
 
+import { agentFor, type Agent } from '../helpers/api';
 let h: BrowserHarness;
 let workers: { stop: () => Promise<void> };
 let studioId = '';
@@ -27,12 +26,7 @@ const stackUrl = (name: string) => `${h.baseUrl}/sessions/${sessionId}/stacks/${
 const HANDED = ['Dew on frond, left drop', 'Beetle head'];
 const DRAFT = 'Beetle elytra';
 
-async function apiAgent(creds: { email: string; password: string }): Promise<Agent> {
-  const agent = request.agent(h.baseUrl) as unknown as Agent;
-  agent.csrf = (await agent.get('/api/auth/csrf').expect(200)).body.csrfToken;
-  agent.csrf = (await agent.post('/api/auth/sign-in').set('x-csrf-token', agent.csrf).send(creds).expect(200)).body.csrfToken;
-  return agent;
-}
+const apiAgent = (creds: { email: string; password: string }): Promise<Agent> => agentFor(h.baseUrl, creds);
 
 async function signInAs(role: string): Promise<Page> {
   // Each test signs in afresh, as its own member. The last member's session ends on the server first:

@@ -24,8 +24,11 @@ export async function buildApp(): Promise<Express> {
 
 export type Agent = ReturnType<typeof request.agent> & { csrf: string };
 
-/** An agent with a session and its CSRF token; signs in when credentials are given. */
-export async function agentFor(app: Express, creds?: { email: string; password: string }): Promise<Agent> {
+/**
+ * An agent with a session and its CSRF token; signs in when credentials are given. `app` is the
+ * Express app (API tests) or the base URL of a listening server (browser tests).
+ */
+export async function agentFor(app: Express | string, creds?: { email: string; password: string }): Promise<Agent> {
   const agent = request.agent(app) as Agent;
   const res = await agent.get('/api/auth/csrf').expect(200);
   agent.csrf = res.body.csrfToken;
